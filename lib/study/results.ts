@@ -1,0 +1,99 @@
+// The shape of results.json ("shiftload-results/1"): plain data written by `analyze`, read by
+// `report` and `compare`. Field names are part of the public contract; add, never rename.
+
+export type Severity = 'info' | 'warning' | 'error';
+
+export interface FindingWhere {
+  worker?: string;
+  recording?: string;
+  signal?: string;
+  segment?: string;
+  start_s?: number;
+  end_s?: number;
+}
+
+/** A data-quality or method finding: never an exception, always reported. */
+export interface Finding {
+  severity: Severity;
+  /** Stable machine code, e.g. "segment-too-short", "clipping", "reference-weak". */
+  code: string;
+  where: FindingWhere;
+  /** Plain words with the measured value and the limit used. */
+  message: string;
+}
+
+/** Unit of normalized values. */
+export type LoadUnit = '%MVE' | '%RVE' | '%task-peak' | 'uV';
+
+/** One worker × condition × muscle × segment summary (also one line of segments.csv). */
+export interface ResultRow {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  /** Recording file (as written in the job). */
+  recording: string;
+  /** Segment label; "all" for the whole recording. */
+  segment: string;
+  start_s: number;
+  end_s: number;
+  /** Time that entered the statistics, s (segment length less excluded time). */
+  valid_s: number;
+  unit: LoadUnit;
+  /** Reference amplitude (MVE/RVE/task peak) in µV after noise correction; null for 'none'. */
+  reference_uv: number | null;
+  /** Noise RMS in µV used for the correction; null when not applied. */
+  noise_uv: number | null;
+  /** Percentiles of the normalized envelope keyed p<q> (p10, p50, p90 by default). */
+  [percentile: `p${number}`]: number | null;
+  /** Threshold actually applied, in `unit`. */
+  gap_threshold: number;
+  gaps: number;
+  gaps_per_min: number | null;
+  rest_pct: number | null;
+  longest_without_gap_s: number | null;
+  sustained_pct: number | null;
+}
+
+export interface EvaMatrix {
+  worker: string;
+  condition: string;
+  muscle: string;
+  segment: string;
+  unit: LoadUnit;
+  /** Amplitude class edges in `unit`; the last class is open above. */
+  amplitude_edges: number[];
+  /** Duration class edges in s; the last class is open above. */
+  duration_edges_s: number[];
+  /** percent_time[a][d]: % of valid time in amplitude class a with period duration class d. */
+  percent_time: number[][];
+}
+
+/** A decimated envelope trace for charts: one point per bin (mean and max of the bin). */
+export interface EnvelopeTrace {
+  worker: string;
+  condition: string;
+  muscle: string;
+  recording: string;
+  unit: LoadUnit;
+  /** Seconds per point. */
+  step_s: number;
+  mean: (number | null)[];
+  max: (number | null)[];
+  segments: { label: string; start_s: number; end_s: number }[];
+}
+
+export interface StudyResults {
+  format: 'shiftload-results/1';
+  tool: { name: 'shiftload'; version: string };
+  title: string;
+  /** Effective settings, every default filled in. */
+  settings: Record<string, unknown>;
+  inputs: { file: string; sha256: string; duration_s: number }[];
+  rows: ResultRow[];
+  eva: EvaMatrix[];
+  traces: EnvelopeTrace[];
+  /** APDF curves: for each row key, the envelope value at every percent 0…100. */
+  apdf: { worker: string; condition: string; muscle: string; segment: string; unit: LoadUnit; levels: number[] }[];
+  findings: Finding[];
+}
