@@ -2,7 +2,7 @@
 // uninterrupted periods (Mathiassen & Winkel 1991, Ergonomics 34(12):1455–1468, FOUND; the
 // procedure details and class edges are FROM MEMORY and configurable).
 
-import { checkEdges, checkRate } from './check-rate.js';
+import { checkEdges, checkRate } from './check-parameters.js';
 import { DEFAULTS } from './defaults.js';
 
 export interface EvaMatrixOptions {

@@ -1,7 +1,7 @@
 // EMG gaps and muscular rest of a normalized envelope slice (Veiersted et al. 1990, gap concept;
 // Nordander et al. 2000 and Hansson et al. 2000, muscular rest and gap frequency).
 
-import { checkFinite, checkNonNegative, checkRate } from './check-rate.js';
+import { checkFinite, checkNonNegative, checkRate } from './check-parameters.js';
 import { DEFAULTS } from './defaults.js';
 
 export interface RestGapsOptions {

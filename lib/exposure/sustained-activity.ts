@@ -2,7 +2,7 @@
 // last longer than a minimum duration (Hanvold et al. 2013: > 0.5 %EMGmax for > 4 min), with
 // optional SULMA-style counts per duration interval (Östensvik et al. 2009; edges configurable).
 
-import { checkEdges, checkFinite, checkNonNegative, checkRate } from './check-rate.js';
+import { checkEdges, checkFinite, checkNonNegative, checkRate } from './check-parameters.js';
 import { DEFAULTS } from './defaults.js';
 
 export interface SustainedActivityOptions {

@@ -1,4 +1,4 @@
-// Shared parameter checks of the exposure measures (rates, durations, class edges).
+// Parameter checks shared by the exposure measures (rates, durations, thresholds, class edges).
 
 import { UsageError } from '../errors.js';
 import { exposureMsg, msg } from '../messages.js';
