@@ -20,6 +20,11 @@ export interface SignalInfo {
   transducer: string;
   /** Total number of samples of this signal in the file. */
   samples: number;
+  /**
+   * CSV/TSV only: number of empty cells in this column, read as NaN (a data-quality finding for
+   * callers). Absent for EDF/BDF, which cannot hold missing values.
+   */
+  nan_count?: number;
 }
 
 /** An EDF+ annotation (TAL) or a CSV/segment-file event. Times in s from the recording start. */
@@ -53,6 +58,11 @@ export interface ReadOptions {
   start_s?: number;
   /** End of the span (exclusive), s (default: end of recording). */
   end_s?: number;
+  /**
+   * EDF/BDF: deliver the stored digital integers instead of physical values (tests, format
+   * tools). Ignored by the CSV reader. @default false
+   */
+  digital?: boolean;
 }
 
 /**
