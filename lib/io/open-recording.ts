@@ -4,6 +4,7 @@ import { open, stat } from 'node:fs/promises';
 import { extname } from 'node:path';
 import { InputError } from '../errors.js';
 import { msg, ioMsg } from '../messages.js';
+import { openCsv } from './csv-reader.js';
 import { openEdf } from './edf-reader.js';
 import type { OpenOptions } from './open-options.js';
 import type { Recording } from './recording.js';
@@ -49,6 +50,7 @@ export async function openRecording(path: string, options: OpenOptions = {}): Pr
     return openEdf(path, fh, size, options);
   }
   const ext = extname(path).toLowerCase();
+  if (ext === '.csv' || ext === '.tsv' || ext === '.txt') return openCsv(path, fh, size, options);
   if (ext === '.edf' || ext === '.bdf') return openEdf(path, fh, size, options);
   await fh.close();
   throw new InputError(ioMsg.unknownFormat(path), { file: path });

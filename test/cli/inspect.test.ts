@@ -1,9 +1,10 @@
 // `shiftload inspect` through main(): JSON against the EDFlib truth files (every *.truth.json in
 // shared/fixtures/edf; expected values: EDFlib 1.23 edf_hdr_struct/edf_param_struct fields,
 // count_at_dig_min/max, edf_get_annotation), and every broken fixture → exit 2 with one line.
-import { readdirSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { bufferIO } from '../../lib/cli/cli-io.js';
 import { main } from '../../lib/cli/main.js';
 import { fixturesDir, truthFiles } from '../io/edf-truth.js';
@@ -70,5 +71,38 @@ describe('shiftload inspect BROKEN', () => {
     const io = bufferIO();
     expect(await main(['inspect', join(dir, 'no-such.edf')], io)).toBe(2);
     expect(io.stderr).toMatch(/no-such\.edf: file not found/);
+  });
+});
+
+describe('shiftload inspect CSV', () => {
+  const tmp = mkdtempSync(join(tmpdir(), 'shiftload-inspect-'));
+  afterAll(() => rmSync(tmp, { recursive: true, force: true }));
+  const put = (name: string, text: string) => { const p = join(tmp, name); writeFileSync(p, text); return p; };
+
+  it('inspect x.csv --json reports rate, unit and empty cells (nan_count)', async () => {
+    const p = put('ok.csv', 'time;EMG [uV]\n0;1,5\n0,001;\n0,002;2\n');
+    const io = bufferIO();
+    expect(await main(['inspect', p, '--json'], io)).toBe(0);
+    const r = JSON.parse(io.stdout);
+    expect(r.format).toBe('CSV');
+    expect(r.signals[0]).toMatchObject({ label: 'EMG', unit: 'uV', rate_hz: 1000, samples: 3, nan_count: 1, digital_min: null, clipped_low: 0, clipped_high: 0 });
+  });
+  it('inspect ragged.csv exits 2 with the line number, one line', async () => {
+    const p = put('ragged.csv', 'time,A,B\n0,1,2\n0.001,1,2,3\n');
+    const io = bufferIO();
+    expect(await main(['inspect', p], io)).toBe(2);
+    expect(io.stderr).toBe(`shiftload: ${p}:3: row has 4 cells, the header has 3\n`);
+  });
+  it('inspect text.csv exits 2 naming line and column', async () => {
+    const p = put('text.csv', 'time,A\n0,1\n0.001,x1\n');
+    const io = bufferIO();
+    expect(await main(['inspect', p], io)).toBe(2);
+    expect(io.stderr).toBe(`shiftload: ${p}:3 column A: expected a number, got 'x1'\n`);
+  });
+  it('inspect norate.csv --rate 500 reads a file without a time column', async () => {
+    const p = put('norate.csv', 'A,B\n1,2\n3,4\n');
+    const io = bufferIO();
+    expect(await main(['inspect', p, '--rate', '500', '--json'], io)).toBe(0);
+    expect(JSON.parse(io.stdout).duration_s).toBe(2 / 500);
   });
 });
