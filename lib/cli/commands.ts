@@ -1,6 +1,7 @@
 // The list of command modules, one file per command. Add a new command here.
 import type { CommandModule } from 'yargs';
 
+import { convertCommand } from './convert.js';
 import { inspectCommand } from './inspect.js';
 import { versionInfoCommand } from './version-info.js';
 
@@ -8,4 +9,5 @@ import { versionInfoCommand } from './version-info.js';
 export const commands: CommandModule<any, any>[] = [
   versionInfoCommand,
   inspectCommand,
+  convertCommand,
 ];

@@ -31,6 +31,8 @@ export interface InspectResult {
   file: string;
   format: string;
   start: string | null;
+  /** EDF+: data start this many seconds after `start` (0 when absent) */
+  start_subsecond_s: number;
   duration_s: number;
   record_duration_s: number | null;
   signals: InspectSignal[];
@@ -61,6 +63,7 @@ export async function inspectRecording(file: string, options: { rate_hz?: number
       file,
       format: info.format,
       start: info.start,
+      start_subsecond_s: info.start_subsecond_s ?? 0,
       duration_s: info.duration_s,
       record_duration_s: info.record_duration_s,
       signals: info.signals.map((s, j) => ({
@@ -93,7 +96,7 @@ export function formatInspect(r: InspectResult): string {
   const kv = (k: string, v: string) => lines.push(`${k.padEnd(10)}${v}`);
   kv('file', r.file);
   kv('format', r.format);
-  kv('start', r.start ?? 'unknown');
+  kv('start', (r.start ?? 'unknown') + (r.start_subsecond_s ? ` + ${fmt(r.start_subsecond_s)} s` : ''));
   kv('duration', `${fmt(r.duration_s)} s (${clock(r.duration_s)})${r.record_duration_s !== null ? `, data records of ${fmt(r.record_duration_s)} s` : ''}`);
   lines.push('');
   const hasNan = r.signals.some((s) => s.nan_count !== undefined);

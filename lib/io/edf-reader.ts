@@ -25,7 +25,7 @@ export interface EdfRecording extends Recording {
  */
 export async function openEdf(file: string, fh: FileHandle, fileSize: number, options: OpenOptions = {}): Promise<EdfRecording> {
   let header: EdfHeader;
-  let scan: { annotations: Annotation[]; recordStarts: Float64Array | null };
+  let scan: { annotations: Annotation[]; recordStarts: Float64Array | null; subsecond: number };
   try {
     header = await readEdfHeader(fh, file, fileSize);
     scan = await scanAnnotations(file, fh, header, options.chunk_bytes ?? IO_DEFAULTS.chunk_bytes);
@@ -53,6 +53,7 @@ export async function openEdf(file: string, fh: FileHandle, fileSize: number, op
     file,
     format,
     start: header.start,
+    ...(scan.subsecond !== 0 ? { start_subsecond_s: scan.subsecond } : {}),
     duration_s: header.records * dur,
     signals,
     annotations: scan.annotations,
@@ -71,7 +72,7 @@ export async function openEdf(file: string, fh: FileHandle, fileSize: number, op
 async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunkBytes: number) {
   const annotations: Annotation[] = [];
   const ann = h.signals.filter((s) => s.is_annotation);
-  if (ann.length === 0) return { annotations, recordStarts: null };
+  if (ann.length === 0) return { annotations, recordStarts: null, subsecond: 0 };
   const bps = h.bytes_per_sample;
   const aLo = ann[0].offset_in_record;
   const last = ann[ann.length - 1];
@@ -106,7 +107,7 @@ async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunk
     for (const x of annotations) x.onset_s -= t0;
     for (let r = 0; r < recordStarts.length; r++) recordStarts[r] -= t0;
   }
-  return { annotations, recordStarts: h.plus === 'D' ? recordStarts : null };
+  return { annotations, recordStarts: h.plus === 'D' ? recordStarts : null, subsecond: t0 };
 }
 
 async function readExactly(fh: FileHandle, buf: Buffer, length: number, position: number): Promise<void> {
@@ -129,7 +130,8 @@ async function* readRecords(
   const m = sel.length;
   const dur = h.record_duration_s;
   const startS = ro.start_s ?? 0;
-  const endS = ro.end_s ?? info.duration_s;
+  // EDF+D: the default end is the end of the last record by its own clock time
+  const endS = ro.end_s ?? (recordStarts !== null ? recordStarts[h.records - 1] + h.record_duration_s : info.duration_s);
   const digital = ro.digital === true;
   const spr = sel.map((s) => s.samples_per_record);
   const rate = spr.map((n) => n / dur);

@@ -38,6 +38,12 @@ export interface EdfWriterOptions {
   recording?: string;
   /** All annotations, known up front (onsets in s from the start). */
   annotations?: Annotation[];
+  /**
+   * Fraction of a second (0 ≤ x < 1) by which the data start after `start`; written into the
+   * time-keeping TALs (EDF+ subsecond start), so readers report onsets relative to the data.
+   * @default 0
+   */
+  start_subsecond_s?: number;
 }
 
 const MONTHS = ['JAN', 'FEB', 'MAR', 'APR', 'MAY', 'JUN', 'JUL', 'AUG', 'SEP', 'OCT', 'NOV', 'DEC'];
@@ -85,6 +91,7 @@ export class EdfWriter {
   private readonly pending: { record: number; bytes: Buffer }[];
   private pendingAt = 0;
   private closed = false;
+  private readonly subsecond: number;
   readonly record_duration_s: number;
 
   constructor(path: string, signals: EdfWriterSignal[], options: EdfWriterOptions = {}) {
@@ -93,6 +100,8 @@ export class EdfWriter {
     const [dLo, dHi] = bdf ? [-8388608, 8388607] : [-32768, 32767];
     if (signals.length === 0) throw new UsageError('EDF writer: at least one signal is needed');
     const d = options.record_duration_s ?? chooseDuration(signals.map((s) => s.rate_hz));
+    this.subsecond = options.start_subsecond_s ?? 0;
+    if (!(this.subsecond >= 0 && this.subsecond < 1)) throw new UsageError(`EDF writer: start_subsecond_s must be in [0, 1), got ${this.subsecond}`);
     this.record_duration_s = d;
     this.spr = signals.map((s) => Math.round(s.rate_hz * d));
     signals.forEach((s, i) => {
@@ -127,7 +136,7 @@ export class EdfWriter {
     // Annotations: each goes into the record holding its onset (or a later one when that record is
     // full); the annotation signal is sized for the largest per-record need.
     const tals = (options.annotations ?? []).slice().sort((a, b) => a.onset_s - b.onset_s)
-      .map((a) => ({ record: Math.max(0, Math.floor(a.onset_s / d + 1e-9)), bytes: talBytes(a) }));
+      .map((a) => ({ record: Math.max(0, Math.floor(a.onset_s / d + 1e-9)), bytes: talBytes(a, this.subsecond) }));
     const perRecord = new Map<number, number>();
     let largest = 0;
     for (const t of tals) {
@@ -280,7 +289,7 @@ export class EdfWriter {
     }
     // annotation signal: time-keeping TAL, then the annotations due in this record that fit
     const annEnd = p + this.annBytes;
-    const tk = Buffer.from(`+${formatSeconds(this.records * this.record_duration_s)}\x14\x14\x00`, 'latin1');
+    const tk = Buffer.from(`+${formatSeconds(this.subsecond + this.records * this.record_duration_s)}\x14\x14\x00`, 'latin1');
     tk.copy(out, p);
     p += tk.length;
     while (this.pendingAt < this.pending.length) {
@@ -386,8 +395,9 @@ function formatSeconds(t: number): string {
 }
 
 /** One annotation as a TAL: +onset[\x15duration]\x14text\x14\x00 (text UTF-8; 0x00/0x14/0x15 replaced). */
-function talBytes(a: Annotation): Buffer {
-  const onset = a.onset_s < 0 ? `-${formatSeconds(-a.onset_s)}` : `+${formatSeconds(a.onset_s)}`;
+function talBytes(a: Annotation, shift: number): Buffer {
+  const t = a.onset_s + shift;
+  const onset = t < 0 ? `-${formatSeconds(-t)}` : `+${formatSeconds(t)}`;
   const dur = a.duration_s === null || a.duration_s === undefined ? '' : `\x15${formatSeconds(a.duration_s)}`;
   const text = a.text.replace(/[\x00\x14\x15]/g, ' ');
   return Buffer.concat([Buffer.from(`${onset}${dur}\x14`, 'latin1'), Buffer.from(text, 'utf8'), Buffer.from('\x14\x00', 'latin1')]);

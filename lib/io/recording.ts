@@ -43,6 +43,11 @@ export interface RecordingInfo {
   format: RecordingFormat;
   /** Start date-time from the header as 'YYYY-MM-DDTHH:MM:SS' (local time, no zone), or null. */
   start: string | null;
+  /**
+   * EDF+/BDF+: seconds (0 ≤ x < 1) by which the first data record starts after `start` (from its
+   * time-keeping TAL). All times in this interface are relative to that first record. Absent: 0.
+   */
+  start_subsecond_s?: number;
   /** Total duration in s (records × record duration; CSV: samples / rate). */
   duration_s: number;
   signals: SignalInfo[];
