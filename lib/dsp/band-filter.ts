@@ -60,7 +60,7 @@ export interface BandFilterSettings {
 
 /** Build the SOS cascade (notches first, then band-pass) for resolved options. */
 export function bandFilterSos(options: BandFilterOptions): { sos: Sos; notchHz: number[] } {
-  const o = { ...BAND_FILTER_DEFAULTS, ...stripUndefined(options) };
+  const o = resolve(options);
   const bp = butter(o.order, o.band_hz, { btype: 'bandpass', fs: o.fs });
   if (o.mains_hz === null) return { sos: bp, notchHz: [] };
   if (o.mains_hz !== 50 && o.mains_hz !== 60) throw new UsageError(dspMsg.mainsHz(o.mains_hz));
@@ -69,8 +69,14 @@ export function bandFilterSos(options: BandFilterOptions): { sos: Sos; notchHz: 
   return { sos: sosConcat(notch, bp), notchHz };
 }
 
-function stripUndefined<T extends object>(o: T): Partial<T> {
-  return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Partial<T>;
+/** Options with every default filled in. */
+function resolve(o: BandFilterOptions): Required<BandFilterOptions> {
+  const d = BAND_FILTER_DEFAULTS;
+  return {
+    fs: o.fs, band_hz: o.band_hz ?? d.band_hz, order: o.order ?? d.order,
+    mains_hz: o.mains_hz === undefined ? d.mains_hz : o.mains_hz,
+    mains_harmonics: o.mains_harmonics ?? d.mains_harmonics, mains_q: o.mains_q ?? d.mains_q,
+  };
 }
 
 /**
@@ -94,7 +100,7 @@ export class BandFilter {
   private runs: number[] = [];
 
   constructor(options: BandFilterOptions) {
-    const o = { ...BAND_FILTER_DEFAULTS, ...stripUndefined(options) };
+    const o = resolve(options);
     const { sos, notchHz } = bandFilterSos(o);
     this.zp = new ZeroPhaseFilter(sos);
     this.settings = {
