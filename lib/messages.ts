@@ -37,6 +37,8 @@ const listed = (xs: readonly string[], max = 12): string =>
 export const jobMsg = {
   /** The one-line form of every job-file problem: "job.yaml:14 workers[0].id: <what>". */
   at: (file: string, line: number, path: string, what: string) => `${file}:${line} ${path}: ${what}`,
+  /** A problem at a line of a file without key paths (CSV segment files). */
+  atLine: (file: string, line: number, what: string) => `${file}:${line}: ${what}`,
   yamlSyntax: (file: string, line: number, reason: string) => `${file}:${line}: YAML syntax error: ${reason}`,
   yamlDocuments: (file: string, n: number) => `${file}: expected one YAML document, found ${n}`,
   tooLarge: (file: string, limit: number) => `${file}: larger than ${limit} bytes; a job file is a short text file`,
@@ -90,10 +92,13 @@ export const jobMsg = {
   gapMaxBelowMin: (max: number, min: number) => `gap_max_s (${max}) must be greater than gap_min_s (${min})`,
   segmentsBothSources: () => "give one of 'annotations' or 'csv', not both",
   segmentsNoSource: () => "give 'annotations' or 'csv'",
-  csvHeader: (file: string, got: string) => `${file}:1: expected the header line label,start_s,end_s, got '${got}'`,
-  csvColumns: (file: string, line: number, n: number) => `${file}:${line}: expected 3 fields (label,start_s,end_s), got ${n}`,
+  csvHeader: (got: string) => `expected the header line label,start_s,end_s, got '${got}'`,
+  csvColumns: (n: number) => `expected 3 fields (label,start_s,end_s), got ${n}`,
+  csvQuote: () => 'unterminated quoted field',
+  csvNumber: (got: string) => `expected a number of seconds, got '${got}'`,
   // init
   initExists: (file: string) => `${file}: already exists; use --force to overwrite it`,
+  initNotFolder: (dir: string) => `${dir}: exists and is not a folder`,
 };
 
 /** A short description of a value for "got …" in messages. */

@@ -23,6 +23,11 @@ export function jobIssue(file: string, line: number, path: KeyPathStep[], what: 
   return { file, line, path, what, message: jobMsg.at(file, line, formatKeyPath(path), what) };
 }
 
+/** An issue at a line of a file that has no key paths (a CSV segment file). */
+export function lineIssue(file: string, line: number, what: string): JobIssue {
+  return { file, line, path: [], what, message: jobMsg.atLine(file, line, what) };
+}
+
 export class JobValidationError extends InputError {
   readonly issues: JobIssue[];
   constructor(issues: JobIssue[]) {

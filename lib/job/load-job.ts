@@ -10,7 +10,7 @@ import type { LoadUnit } from '../study/results.js';
 import { DEFAULTS, type Settings } from './defaults.js';
 import { describeRecordingFile, type DescribeRecording, type RecordingDescription } from './describe-recording.js';
 import type { JobFile, RecordingInput, SegmentsInput, SpanInput, SpansInput, WorkerInput } from './job-file.js';
-import { jobIssue, JobValidationError, type JobIssue } from './job-validation-error.js';
+import { jobIssue, JobValidationError, lineIssue, type JobIssue } from './job-validation-error.js';
 import { formatKeyPath, type KeyPathStep } from './key-path.js';
 import { parseYamlWithLines, YAML_LIMITS } from './parse-yaml-lines.js';
 import { readSegmentsCsv } from './read-segments-csv.js';
@@ -245,6 +245,9 @@ async function resolveRecording(
     channels.push({ signal: c.signal, signalIndex: idx, muscle, rate_hz: rate });
   });
 
+  // Signals missing from the field recording are reported there once, not again per span file.
+  const missingHere = new Set(desc ? r.channels.map((c) => c.signal).filter((sig) => !desc.signals.some((s) => s.label === sig)) : []);
+
   // Reference, rest and MVE spans: the recording's own, else the worker's.
   const pick = (key: 'reference' | 'rest' | 'mve_reference') =>
     r[key] !== undefined ? { spans: r[key] as SpansInput, path: [...rPath, key], own: true }
@@ -260,7 +263,7 @@ async function resolveRecording(
       const sPath = spanPath(p.path, p.spans, k);
       const spanFile = sp.file ?? (p.own ? r.file : undefined);
       if (spanFile === undefined) continue; // reported at worker level
-      const resolved = await resolveSpan(sp, spanFile, sPath, r, rPath, ctx);
+      const resolved = await resolveSpan(sp, spanFile, sPath, r, rPath, missingHere, ctx);
       for (const s of resolved) {
         if (abs !== null && s.file === abs && s.annotation !== null) usedAnnotations.add(s.annotation);
         out.push(s);
@@ -298,7 +301,8 @@ async function resolveRecording(
 
 /** Resolve one span (times or annotation) in its file; check the recording's signals exist there. */
 async function resolveSpan(
-  sp: SpanInput, written: string, sPath: KeyPathStep[], r: RecordingInput, rPath: KeyPathStep[], ctx: JobContext,
+  sp: SpanInput, written: string, sPath: KeyPathStep[], r: RecordingInput, rPath: KeyPathStep[],
+  missingHere: ReadonlySet<string>, ctx: JobContext,
 ): Promise<StudySpan[]> {
   const byTimes = sp.start_s !== undefined || sp.end_s !== undefined;
   const byAnnotation = sp.annotation !== undefined;
@@ -317,7 +321,7 @@ async function resolveSpan(
   const signalIndices: number[] = [];
   r.channels.forEach((c, ci) => {
     const idx = desc.signals.findIndex((s) => s.label === c.signal);
-    if (idx < 0) {
+    if (idx < 0 && !missingHere.has(c.signal)) {
       ctx.issue(filePath, jobMsg.noSignalForChannel(c.signal, written, formatKeyPath([...rPath, 'channels', ci]), desc.signals.map((s) => s.label)));
     }
     signalIndices.push(idx);
@@ -355,7 +359,7 @@ async function resolveSpan(
 
 interface PlacedSegment extends StudySegment {
   /** Where to point a message about this segment. */
-  at: { file: string; line: number; path: KeyPathStep[] };
+  at: { file: string; line: number; path: KeyPathStep[] | null };
 }
 
 /** Inline list, annotations or CSV → sorted segments; checks order, bounds and overlap. */
@@ -400,14 +404,14 @@ function resolveSegments(
       throw e;
     }
     if (rows.length === 0) { ctx.issue([...sPath, 'csv'], jobMsg.noSegments('the file lists no segments', spec.csv)); return []; }
-    placed = rows.map((s) => ({ label: s.label, start_s: s.start_s, end_s: s.end_s, source: 'csv' as const, at: { file: spec.csv as string, line: s.line, path: [] } }));
+    placed = rows.map((s) => ({ label: s.label, start_s: s.start_s, end_s: s.end_s, source: 'csv' as const, at: { file: spec.csv as string, line: s.line, path: null } }));
   } else {
     ctx.issue(sPath, jobMsg.segmentsNoSource());
     return [];
   }
 
   const problem = (s: PlacedSegment, what: string) => {
-    ctx.issues.push(jobIssue(s.at.file, s.at.line, s.at.path, what));
+    ctx.issues.push(s.at.path === null ? lineIssue(s.at.file, s.at.line, what) : jobIssue(s.at.file, s.at.line, s.at.path, what));
   };
   const ok: PlacedSegment[] = [];
   for (const s of placed) {

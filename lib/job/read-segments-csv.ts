@@ -2,7 +2,7 @@
 // line. Fields may be double-quoted ("a, b"; "" for a quote). Blank lines and lines starting with #
 // are skipped. Times in s from the recording start.
 import { jobMsg } from '../messages.js';
-import { jobIssue, JobValidationError } from './job-validation-error.js';
+import { jobIssue, JobValidationError, lineIssue } from './job-validation-error.js';
 
 /** A segment read from a CSV file, with the line it came from (1-based). */
 export interface CsvSegment { label: string; start_s: number; end_s: number; line: number }
@@ -17,7 +17,7 @@ export interface CsvSegment { label: string; start_s: number; end_s: number; lin
  */
 export function readSegmentsCsv(text: string, file: string): CsvSegment[] {
   const fail = (line: number, column: string, what: string): never => {
-    throw new JobValidationError([jobIssue(file, line, column === '' ? [] : [column], what)]);
+    throw new JobValidationError([column === '' ? lineIssue(file, line, what) : jobIssue(file, line, [column], what)]);
   };
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
   let headerSeen = false;
@@ -27,29 +27,29 @@ export function readSegmentsCsv(text: string, file: string): CsvSegment[] {
     const raw = lines[i];
     if (raw.trim() === '' || raw.trimStart().startsWith('#')) continue;
     const fields = splitCsvLine(raw);
-    if (fields === null) fail(lineNo, '', 'unterminated quoted field');
+    if (fields === null) fail(lineNo, '', jobMsg.csvQuote());
     const f = (fields as string[]).map((x) => x.trim());
     if (!headerSeen) {
       if (f.length !== 3 || f[0] !== 'label' || f[1] !== 'start_s' || f[2] !== 'end_s') {
-        throw new JobValidationError([{ ...jobIssue(file, lineNo, [], ''), message: jobMsg.csvHeader(file, raw.trim()) }]);
+        fail(lineNo, '', jobMsg.csvHeader(raw.trim()));
       }
       headerSeen = true;
       continue;
     }
     if (f.length !== 3) {
-      throw new JobValidationError([{ ...jobIssue(file, lineNo, [], ''), message: jobMsg.csvColumns(file, lineNo, f.length) }]);
+      fail(lineNo, '', jobMsg.csvColumns(f.length));
     }
-    if (f[0] === '') fail(lineNo, 'label', 'must not be empty text');
+    if (f[0] === '') fail(lineNo, 'label', jobMsg.emptyText());
     const num = (s: string, column: string): number => {
       const v = s === '' ? NaN : Number(s);
-      if (!Number.isFinite(v)) fail(lineNo, column, `expected a number of seconds, got '${s}'`);
-      if (v < 0) fail(lineNo, column, `expected a value >= 0, got ${v}`);
+      if (!Number.isFinite(v)) fail(lineNo, column, jobMsg.csvNumber(s));
+      if (v < 0) fail(lineNo, column, jobMsg.outOfRange('>= 0', v));
       return v;
     };
     out.push({ label: f[0], start_s: num(f[1], 'start_s'), end_s: num(f[2], 'end_s'), line: lineNo });
   }
   if (!headerSeen) {
-    throw new JobValidationError([{ ...jobIssue(file, 1, [], ''), message: jobMsg.csvHeader(file, '') }]);
+    fail(1, '', jobMsg.csvHeader(''));
   }
   return out;
 }
