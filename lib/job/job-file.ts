@@ -43,7 +43,7 @@ export interface WorkerInput {
 }
 
 /** Settings as written: every key optional, `eva` partial too. */
-export type SettingsInput = Partial<Omit<Settings, 'eva'>> & { eva?: Partial<Settings['eva']> };
+export type SettingsInput = Partial<Omit<Settings, 'eva'>> & { eva?: Partial<Settings['eva']> | null };
 
 export interface JobFile {
   format: string;
@@ -52,6 +52,6 @@ export interface JobFile {
   date?: string;
   analyst?: string;
   notes?: string;
-  settings?: SettingsInput;
+  settings?: SettingsInput | null;
   workers: WorkerInput[];
 }

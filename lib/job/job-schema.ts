@@ -131,8 +131,8 @@ const increasing = (title: string, description: string, dflt: readonly number[])
 
 const settings = {
   title: 'Settings',
-  description: 'Analysis settings; every key is optional and has a documented default.',
-  type: 'object',
+  description: 'Analysis settings; every key is optional and has a documented default (empty means all defaults).',
+  type: ['object', 'null'],
   additionalProperties: false,
   properties: {
     band_hz: { ...numberPair, title: 'Band-pass, Hz', description: `Butterworth band-pass edges [low, high] in Hz; high must be below half of every channel's sampling rate. Default ${JSON.stringify(DEFAULTS.band_hz)}.`, default: DEFAULTS.band_hz },
@@ -155,8 +155,8 @@ const settings = {
     percentiles: { type: 'array', minItems: 1, items: { type: 'number', minimum: 0, maximum: 100 }, title: 'APDF percentiles, %', description: `Percentiles of the normalized envelope reported. Default ${JSON.stringify(DEFAULTS.percentiles)}.`, default: DEFAULTS.percentiles },
     eva: {
       title: 'Exposure variation analysis',
-      description: 'Class edges of the EVA matrix.',
-      type: 'object',
+      description: 'Class edges of the EVA matrix (empty means the defaults).',
+      type: ['object', 'null'],
       additionalProperties: false,
       properties: {
         amplitude_edges: increasing('Amplitude edges', `Increasing amplitude class edges in the normalized unit; the last class is open above. Default ${JSON.stringify(DEFAULTS.eva.amplitude_edges)}.`, DEFAULTS.eva.amplitude_edges),

@@ -144,6 +144,11 @@ describe('loadJob(path) on a valid job', () => {
     expect(study.gapThreshold.note).toMatch(/%RVE/);
   });
 
+  it('loadJob() treats an empty settings block (all commented out) as all defaults', async () => {
+    const { study } = await loadText(variant({ 5: '  # band_hz: [30, 400]', 6: '  # eva:' }));
+    expect(study.settings).toEqual(DEFAULTS);
+  });
+
   it('loadJob() accepts a numeric worker id as text', async () => {
     const { study } = await loadText(variant({ 8: '  - id: 7' }));
     expect(study.workers[0].id).toBe('7');
