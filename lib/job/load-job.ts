@@ -93,7 +93,7 @@ class JobContext {
     this.issues.push(jobIssue(this.shown, this.lineOf(path), path, what));
   }
 
-  /** "job.yaml:12 workers[0].id" for pointing at an earlier place. */
+  /** "line 12 (workers[0].id)": points at an earlier place in the job file. */
   where(path: KeyPathStep[]): string {
     return `line ${this.lineOf(path)} (${formatKeyPath(path)})`;
   }
