@@ -83,10 +83,31 @@ export interface EnvelopeTrace {
   segments: { label: string; start_s: number; end_s: number }[];
 }
 
+/** How one channel was normalized: the reference and noise levels actually used. */
+export interface ReferenceValue {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  /** Normalization method (mve, rve, task-peak, none). */
+  method: string;
+  /** Reference amplitude after noise correction, µV; null when missing or not used. */
+  reference_uv: number | null;
+  noise_uv: number | null;
+  /** With RVE and a %MVE gap threshold: the worker's MVE, µV. */
+  mve_uv: number | null;
+  spans: { file: string; start_s: number; end_s: number; annotation: string | null }[];
+}
+
 export interface StudyResults {
   format: 'shiftload-results/1';
   tool: { name: 'shiftload'; version: string };
   title: string;
+  /** Descriptive fields from the job file (null when not given). */
+  study?: { site: string | null; date: string | null; analyst: string | null; notes: string | null };
+  /** Reference and noise levels per worker × recording × channel. */
+  references?: ReferenceValue[];
   /** Effective settings, every default filled in. */
   settings: Record<string, unknown>;
   inputs: { file: string; sha256: string; duration_s: number }[];
