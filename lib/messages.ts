@@ -225,3 +225,12 @@ export const findingText = {
 // ---------------------------------------------------------------------------------------------
 // report
 // ---------------------------------------------------------------------------------------------
+
+export const reportMsg = {
+  notJson: (file: string, reason: string) => `${file}: not valid JSON (${reason}); expected a shiftload results file`,
+  badFormat: (file: string, got: string) => `${file}: format: expected "shiftload-results/1", got ${got}`,
+  badField: (file: string, field: string, expected: string, got: string) => `${file}: ${field}: expected ${expected}, got ${got}`,
+  noRows: (file: string) => `${file}: rows: expected at least one result row, got none`,
+  wrote: (file: string, pages: number, ms: number) => `wrote ${file} (${pages} pages, ${ms} ms)\n`,
+  wroteSvg: (dir: string, n: number) => `wrote ${n} SVG charts to ${dir}\n`,
+};

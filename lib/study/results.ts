@@ -180,3 +180,44 @@ export interface Comparison {
   /** One plain-language sentence that never overclaims. */
   statement: string;
 }
+
+// ---------------------------------------------------------------------------------------------
+// Optional fields read by the report (added by the report helper; all optional, all additive).
+// ---------------------------------------------------------------------------------------------
+
+/** Who/where/when, for the report's title block. Every field optional. */
+export interface StudyInfo {
+  /** Workplace or site name as the study team wants it printed. */
+  site?: string;
+  /** First and last measurement day, ISO dates (YYYY-MM-DD). */
+  start_date?: string;
+  end_date?: string;
+  /** Organisation or team responsible for the measurements (PDF author). */
+  organisation?: string;
+  /** One or two sentences on what was studied. */
+  description?: string;
+  /** Task segment labels in the order the report should list them (otherwise first appearance). */
+  segment_order?: string[];
+}
+
+/** A mean power spectrum of one worker × condition × muscle (for the band-suggestion chart). */
+export interface SpectrumResult {
+  worker: string;
+  condition: string;
+  muscle: string;
+  /** Frequency of each bin, Hz. */
+  freq_hz: number[];
+  /** Power spectral density at each bin, µV²/Hz. */
+  psd: number[];
+  /** The band the analysis suggests for the band-pass filter, Hz. */
+  suggested_band_hz?: [number, number];
+}
+
+export interface StudyResults {
+  /** Study title block (site, dates, organisation). */
+  study?: StudyInfo;
+  /** When the analysis was run, ISO date-time; the report uses it as its creation date. */
+  created?: string;
+  /** Mean spectra per worker × condition × muscle; the report draws them when present. */
+  spectra?: SpectrumResult[];
+}
