@@ -104,8 +104,6 @@ export interface StudyResults {
   format: 'shiftload-results/1';
   tool: { name: 'shiftload'; version: string };
   title: string;
-  /** Descriptive fields from the job file (null when not given). */
-  study?: { site: string | null; date: string | null; analyst: string | null; notes: string | null };
   /** Reference and noise levels per worker × recording × channel. */
   references?: ReferenceValue[];
   /** Effective settings, every default filled in. */

@@ -298,7 +298,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     format: 'shiftload-results/1',
     tool: { name: 'shiftload', version: toolVersion() },
     title: study.title,
-    study: { site: study.site, date: study.date, analyst: study.analyst, notes: study.notes },
+    study: studyInfo(study),
     settings: {
       ...s,
       unit,
@@ -315,4 +315,17 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     references,
     findings,
   };
+}
+
+/** The job's descriptive fields in the results' title block (absent fields left out). */
+function studyInfo(study: Study): NonNullable<StudyResults['study']> {
+  const info: NonNullable<StudyResults['study']> = {};
+  if (study.site) info.site = study.site;
+  if (study.date) { info.start_date = study.date; info.end_date = study.date; }
+  if (study.analyst) info.organisation = study.analyst;
+  if (study.notes) info.description = study.notes;
+  const order: string[] = [];
+  for (const w of study.workers) for (const r of w.recordings) for (const sg of r.segments) if (!order.includes(sg.label)) order.push(sg.label);
+  info.segment_order = order;
+  return info;
 }
