@@ -24,6 +24,20 @@ export interface EnvelopeSpec {
   rate_hz: number;
 }
 
+/**
+ * An observer of one channel during the streaming pass (quality screening, spectral epochs).
+ * It sees every raw chunk (physical values, before filtering) and every filtered chunk (after the
+ * notch and band-pass, µV) in time order; arrays are only valid during the call.
+ */
+export interface ChannelTap {
+  /** Raw samples; `first` is the index of x[0] within the span read (samples of this channel). */
+  raw?(x: Float64Array, first: number): void;
+  /** Filtered samples, in order, contiguous within one continuous piece. */
+  filtered?(y: Float64Array): void;
+  /** A discontinuity (EDF+D): the next piece starts at `offset_s` from the span start. */
+  restart?(offset_s: number): void;
+}
+
 export interface ReadEnvelopesRequest {
   file: string;
   /** Signal indices (SignalInfo.index) to read, one envelope set per index. */
@@ -38,6 +52,8 @@ export interface ReadEnvelopesRequest {
   second?: EnvelopeSpec;
   /** Reader options (chunk size, CSV rate). */
   open?: OpenOptions;
+  /** Observers per requested signal (same order as `signals`), e.g. quality screening. */
+  taps?: (ChannelTap | null)[];
   /** Called after each chunk with the seconds of the span read so far. */
   onProgress?: (doneS: number) => void;
 }
@@ -77,7 +93,7 @@ class ChannelState {
   clippedHigh = 0;
   samples = 0;
 
-  constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest) {
+  constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest, private readonly tap: ChannelTap | null) {
     this.secondOut = req.second ? new GrowableFloat64() : null;
     this.filter = this.newFilter();
     this.main = new RmsEnvelope({ fs, window_s: req.envelope.window_s, rate_hz: req.envelope.rate_hz });
@@ -90,7 +106,10 @@ class ChannelState {
   }
 
   push(x: Float64Array): void {
+    if (this.tap?.raw) this.tap.raw(x, this.samples);
+    this.samples += x.length;
     const y = this.filter.push(x);
+    if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
     this.mainOut.append(this.main.push(y));
     if (this.second) this.secondOut!.append(this.second.push(y));
   }
@@ -98,6 +117,7 @@ class ChannelState {
   /** End the current continuous piece. */
   flush(): void {
     const y = this.filter.flush();
+    if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
     this.mainOut.append(this.main.push(y));
     this.mainOut.append(this.main.flush());
     if (this.second) {
@@ -112,6 +132,7 @@ class ChannelState {
     const r = this.req;
     this.mainOut.fill(NaN, secondsToSamples(offset_s, r.envelope.rate_hz) - this.mainOut.length);
     if (r.second) this.secondOut!.fill(NaN, secondsToSamples(offset_s, r.second.rate_hz) - this.secondOut!.length);
+    this.tap?.restart?.(offset_s);
     this.filter = this.newFilter();
     this.main = new RmsEnvelope({ fs: this.fs, window_s: r.envelope.window_s, rate_hz: r.envelope.rate_hz });
     this.second = r.second ? new RmsEnvelope({ fs: this.fs, window_s: r.second.window_s, rate_hz: r.second.rate_hz }) : null;
@@ -131,7 +152,7 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
     const info = rec.info;
     const start_s = Math.max(0, req.start_s);
     const end_s = req.end_s === null ? info.duration_s : Math.min(info.duration_s, req.end_s);
-    const states = req.signals.map((i) => new ChannelState(info.signals[i]!.rate_hz, req));
+    const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null));
     let discontinuities = 0;
     let first = true;
     for await (const chunk of rec.read({ signals: req.signals, start_s, end_s })) {
@@ -144,7 +165,6 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
         const s = states[c]!;
         const x = chunk.data[c]!;
         s.push(x);
-        s.samples += x.length;
         s.clippedLow += chunk.clipped_low[c]!;
         s.clippedHigh += chunk.clipped_high[c]!;
       }
