@@ -2,8 +2,10 @@
 import type { CommandModule } from 'yargs';
 
 import { versionInfoCommand } from './version-info.js';
+import { simulateCommand } from './simulate.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const commands: CommandModule<any, any>[] = [
   versionInfoCommand,
+  simulateCommand,
 ];
