@@ -5,7 +5,8 @@
 //         shaper (default: Butterworth band-pass 20–450 Hz, order 4, one forward pass — the common
 //         sEMG band, common practice, no single source; De Luca et al. 2010 J Biomech 43:1573);
 //   g:    the shaper's RMS gain from its impulse-response energy, so s/g has unit RMS;
-//   a(t): the designed envelope (%MVE), linear interpolation of the design grid.
+//   a(t): the designed envelope (%MVE) on the design grid; the amplitude sqrt(a² + noise²) is
+//         computed at the grid points and interpolated linearly to the sampling rate.
 // EMG and the noise floor are independent processes of the same spectrum, so their powers add
 // and the designed RMS is sqrt(a² + noise²) — the model behind noise correction. Filter start-up
 // is hidden by running the filter on warmup_s of discarded noise first.
@@ -28,6 +29,8 @@ interface ChannelState {
   rng: Xoshiro128;
   ampRng: Xoshiro128 | null;
   filter: NoiseFilter;
+  /** sqrt((a·MVE/100)² + noise²) / g at each grid point, µV per unit noise. */
+  amp: Float64Array;
   /** ECG beat centres, sample index (sorted). */
   beats: Int32Array;
   qrs: Float64Array;
@@ -65,8 +68,10 @@ export class RecordingSynthesizer {
       if (warm > 0) { rng.fillNormal(w); filter.process(w, warm); }
       const ecg = c.artifacts.ecg;
       const { qrs, half } = qrsTemplate(this.fs, ecg?.amplitude_uv ?? 0);
+      const amp = new Float64Array(c.envelope.length);
+      for (let k = 0; k < amp.length; k++) amp[k] = Math.hypot((c.envelope[k] * c.mve_uv) / 100, c.noise_uv) * this.invGain;
       return {
-        design: c, rng, filter, qrs, qrsHalf: half,
+        design: c, rng, filter, qrs, qrsHalf: half, amp,
         ampRng: c.artifacts.amplifier_uv ? new Xoshiro128(c.seed ^ 0x5bd1e995n) : null,
         beats: ecg ? beatTimes(ecg.rate_bpm, this.totalSamples, this.fs, new Xoshiro128(c.seed ^ 0x27d4eb2fn)) : new Int32Array(0),
       };
@@ -98,21 +103,15 @@ export class RecordingSynthesizer {
     const fs = this.fs;
     st.rng.fillNormal(x, 0, n);
     st.filter.process(x, n);
-    // envelope scaling (hot loop)
-    const env = d.envelope;
-    const last = env.length - 1;
-    const scale = d.mve_uv / 100;
-    const noise2 = d.noise_uv * d.noise_uv;
+    // envelope scaling (hot loop): amplitude sqrt(a² + noise²)/g precomputed on the grid,
+    // interpolated linearly between grid points
+    const amp = st.amp;
+    const last = amp.length - 1;
     const ratio = this.ratio;
-    const invGain = this.invGain;
     for (let j = 0; j < n; j++) {
       const g = (i0 + j) * ratio;
-      const k = Math.floor(g);
-      let a: number;
-      if (k >= last) a = env[last];
-      else { const f = g - k; a = env[k] + f * (env[k + 1] - env[k]); }
-      a *= scale;
-      x[j] *= Math.sqrt(a * a + noise2) * invGain;
+      const k = g | 0;
+      x[j] *= k >= last ? amp[last] : amp[k] + (g - k) * (amp[k + 1] - amp[k]);
     }
     const art = d.artifacts;
     if (st.ampRng && art.amplifier_uv) {
