@@ -1,4 +1,4 @@
-// Writes a designed recording as CSV, streamed and atomic: header `time_s,<signal>,...`, one row
+// Writes a designed recording as CSV, streamed and atomic: header `time_s,<signal> [uV],...`, one row
 // per sample, time in s and values in µV (3 decimals = 0.001 µV).
 import { AtomicFile } from '../io/write-atomic.js';
 import type { NoiseShaper } from './noise-shaper.js';
@@ -14,7 +14,7 @@ export function writeSimulatedCsv(design: RecordingDesign, path: string, shaper:
   const syn = new RecordingSynthesizer(design, shaper);
   const out = new AtomicFile(path);
   try {
-    out.write(Buffer.from(['time_s', ...design.channels.map((c) => csvField(c.signal))].join(',') + '\n', 'utf8'));
+    out.write(Buffer.from(['time_s', ...design.channels.map((c) => csvField(`${c.signal} [uV]`))].join(',') + '\n', 'utf8'));
     const fs = design.sampling_rate_hz;
     const tDigits = Math.max(3, Math.ceil(Math.log10(fs)) + 1);
     const step = Math.max(1, Math.round(chunk_s * fs));

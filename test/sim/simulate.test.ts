@@ -38,7 +38,7 @@ describe('simulate(spec, outDir, { format: "csv" })', () => {
     ]);
     expect(r.samples).toBe(2 * 2 * 500 * (2 * 90 + 10 + 2 + 2 * (1 + 3 + 1 + 4)));
     const csv = readFileSync(join(out, 'w1-c1.csv'), 'utf8').split('\n');
-    expect(csv[0]).toBe('time_s,EMG A,EMG B');
+    expect(csv[0]).toBe('time_s,EMG A [uV],EMG B [uV]');
     expect(csv.length).toBe(90 * 500 + 2); // header + rows + final newline
     expect(csv[1].split(',')[0]).toBe('0.0000');
   });
