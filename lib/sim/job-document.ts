@@ -43,5 +43,5 @@ export function jobYaml(plan: StudyPlan): string {
     '# Invented data with known truth (truth.json beside this file); not measurements of real people.',
     '',
   ].join('\n');
-  return head + dump(jobDocument(plan), { lineWidth: 120, noRefs: true, flowLevel: 4 });
+  return head + dump(jobDocument(plan), { lineWidth: 120, noRefs: true, flowLevel: 6 });
 }
