@@ -33,6 +33,19 @@ export const msg = {
 // exposure and findings
 // ---------------------------------------------------------------------------------------------
 
+export const exposureMsg = {
+  percentileOutOfRange: (q: number) => `percentile q must be a number from 0 to 100, got ${q}`,
+  edgesNotIncreasing: (name: string, got: readonly number[]) =>
+    `${name} must be finite, strictly increasing numbers (at least one), got [${got.join(', ')}]`,
+  referenceNotPositive: (got: number) => `reference amplitude must be a finite number > 0 µV, got ${got}`,
+  ratioNotPositive: (got: number) => `RVE/MVE ratio k must be a finite number > 0, got ${got}`,
+  emptySample: (name: string) => `${name}: needs at least one finite value, got none`,
+  tooFewForStatistic: (name: string, need: number, got: number) =>
+    `${name}: needs at least ${need} finite values, got ${got}`,
+  unknownMeasure: (got: string, valid: readonly string[]) =>
+    `compare measure must be one of ${valid.join(', ')} or p<q>, got ${got}`,
+};
+
 // ---------------------------------------------------------------------------------------------
 // sim: simulation spec and `shiftload simulate`
 // ---------------------------------------------------------------------------------------------
