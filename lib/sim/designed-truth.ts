@@ -1,7 +1,7 @@
 // truth.json: the values designed into a simulated study, computed from the designed envelopes
 // (never by running the analysis), so the analysis can be checked against them.
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
-import { linearPercentile } from './linear-percentile.js';
+import { percentiles } from '../exposure/percentile.js';
 import type { StudyPlan } from './plan-study.js';
 import type { ChannelDesign, RecordingDesign } from './recording-design.js';
 import { SIM_DEFAULTS } from './simulation-spec.js';
@@ -50,7 +50,8 @@ export interface SegmentTruth {
 export function summarizeDesigned(values: Float64Array, start: number, end: number, rate_hz: number, s: TruthSettings):
   Omit<SegmentTruth, 'label' | 'start_s' | 'end_s' | 'designed_gaps'> {
   const percentiles_pct: Record<string, number> = {};
-  for (const p of s.percentiles) percentiles_pct[`p${p}`] = linearPercentile(values, p, start, end);
+  const ps = percentiles(values.subarray(start, end), s.percentiles);
+  s.percentiles.forEach((p, i) => { percentiles_pct[`p${p}`] = ps[i]; });
   const minRun = s.gap_min_s * rate_hz - 1e-9;
   let gaps = 0, below = 0, run = 0, sinceGap = 0, longest = 0;
   for (let k = start; k <= end; k++) {
@@ -131,7 +132,8 @@ function channelTruth(r: RecordingDesign, c: ChannelDesign, s: TruthSettings) {
     const gaps = segs.reduce((a, x) => a + x.gaps, 0);
     const below = segs.reduce((a, x) => a + (x.rest_pct / 100) * (idx(x.end_s) - idx(x.start_s)), 0);
     const percentiles_pct: Record<string, number> = {};
-    for (const p of s.percentiles) percentiles_pct[`p${p}`] = linearPercentile(pooled, p);
+    const ps = percentiles(pooled, s.percentiles);
+    s.percentiles.forEach((p, i) => { percentiles_pct[`p${p}`] = ps[i]; });
     return {
       label, segments: parts.length, duration_s: total / rate, percentiles_pct, gaps,
       gaps_per_min: total > 0 ? gaps / (total / rate / 60) : 0, rest_pct: total > 0 ? (100 * below) / total : 0,
