@@ -13,7 +13,9 @@ export const DESIGNED_MEANING =
   'An analysis with a short RMS window, the same envelope rate, noise correction and MVE normalization ' +
   'should reproduce them within random error: the generated signal is Gaussian noise whose RMS follows ' +
   'sqrt(a^2 + noise^2), so a 0.1 s RMS window scatters by roughly ±7 % around a(t), and an MVE taken ' +
-  'as the highest 1 s moving RMS lands a few percent above the designed MVE.';
+  'as the highest 1 s moving RMS lands a few percent above the designed MVE. Designed gaps are found ' +
+  'as designed only while the noise floor is well below the gap threshold in µV (threshold × MVE / 100); ' +
+  'with noise near the threshold, noise-corrected gaps break up or vanish.';
 
 export interface TruthSettings {
   /** Percentiles to report (0–100). @default [10, 50, 90] */

@@ -104,7 +104,7 @@ describe('simulate(spec, outDir, { format: "csv" })', () => {
       });
     }
     expect(checked).toBe(2 * 2 * (4 + 2));
-    expect(truth.workers[1].muscles[0]).toEqual({ signal: 'EMG A', muscle: 'muscle a', mve_uv: 350, noise_uv: 3 });
+    expect(truth.workers[1].muscles[0]).toEqual({ signal: 'EMG A', muscle: 'muscle a', mve_uv: 350, noise_uv: 0.8 });
   });
 
   it('refuses a non-empty output folder without force', async () => {

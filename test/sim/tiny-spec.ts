@@ -29,9 +29,9 @@ conditions:
       work: { a: { level_pct: 6, spread_pct: 2, gaps_per_min: 4 }, b: { level_pct: 18, spread_pct: 5 } }
 workers:
   - id: W1
-    muscles: { a: { mve_uv: 400, noise_uv: 2 }, b: { mve_uv: 250, noise_uv: 2 } }
+    muscles: { a: { mve_uv: 400, noise_uv: 1 }, b: { mve_uv: 250, noise_uv: 0.6 } }
   - id: W2
-    muscles: { a: { mve_uv: 350, noise_uv: 3, load: 1.2 }, b: { mve_uv: 200, noise_uv: 2 } }
+    muscles: { a: { mve_uv: 350, noise_uv: 0.8, load: 1.2 }, b: { mve_uv: 200, noise_uv: 0.5 } }
     artifacts: { c1: { a: { dropout: [{ start_s: 10, duration_s: 2 }] } } }
 job:
   settings: { band_hz: [30, 200], percentiles: [10, 50, 90], gap_threshold_pct: 0.5, gap_min_s: 0.2 }
