@@ -14,6 +14,8 @@ import { planStudy, type StudyPlan } from './plan-study.js';
 import type { RecordingDesign } from './recording-design.js';
 import type { SimulationSpec } from './simulation-spec.js';
 import { writeSimulatedCsv } from './write-simulated-csv.js';
+import { writeSimulatedEdf } from './write-simulated-edf.js';
+import { butterShaper } from './butter-shaper.js';
 
 export interface SimulateOptions {
   /** Variant of the spec. @default the first one */
@@ -51,7 +53,7 @@ export interface SimulateResult {
 export async function simulate(spec: SimulationSpec, outDir: string, options: SimulateOptions = {}): Promise<SimulateResult> {
   const plan = planStudy(spec, { variant: options.variant, seed: options.seed, format: options.format, file: options.file });
   prepareFolder(outDir, options.force ?? false);
-  const shaper = options.shaper ?? defaultShaper(spec);
+  const shaper = options.shaper ?? butterShaper(spec.noise_band_hz, spec.noise_order, spec.sampling_rate_hz);
   const files: string[] = [];
   let samples = 0;
   for (const rec of plan.recordings) {
@@ -75,7 +77,7 @@ export async function simulate(spec: SimulationSpec, outDir: string, options: Si
 
 function writeRecording(rec: RecordingDesign, path: string, shaper: NoiseShaper, format: 'edf' | 'csv'): void {
   if (format === 'csv') writeSimulatedCsv(rec, path, shaper);
-  else throw new Error('EDF output: waiting for lib/io/edf-writer.ts');
+  else writeSimulatedEdf(rec, path, shaper);
 }
 
 function prepareFolder(dir: string, force: boolean): void {
@@ -87,6 +89,3 @@ function prepareFolder(dir: string, force: boolean): void {
   }
 }
 
-function defaultShaper(_spec: SimulationSpec): NoiseShaper {
-  throw new Error('default shaper: waiting for lib/dsp/butter.ts');
-}

@@ -6,6 +6,7 @@ import { restGaps } from '../../lib/exposure/rest-gaps.js';
 import { designedTruth } from '../../lib/sim/designed-truth.js';
 import { parseSimulationSpec } from '../../lib/sim/load-simulation-spec.js';
 import { whiteShaper, type NoiseShaper } from '../../lib/sim/noise-shaper.js';
+import { butterShaper } from '../../lib/sim/butter-shaper.js';
 import { planStudy } from '../../lib/sim/plan-study.js';
 import { RecordingSynthesizer } from '../../lib/sim/recording-synthesizer.js';
 import { TINY_SPEC } from './tiny-spec.js';
@@ -69,5 +70,10 @@ export function checkKnownTruth(shaper: NoiseShaper, sigma: number): void {
 describe('simulated recordings reproduce their designed truth', () => {
   it('white noise: moving-RMS envelope percentiles and gap counts match truth.json values', () => {
     checkKnownTruth(whiteShaper, 0.1);
+  });
+
+  it('Butterworth 20–200 Hz noise at 500 Hz (the spec\'s model): the same claims hold', () => {
+    // σ ≈ 1/√(2·B·T) with B = 180 Hz, T = 0.1 s → 0.12
+    checkKnownTruth(butterShaper([20, 200], 4, 500), 0.12);
   });
 });
