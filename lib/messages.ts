@@ -223,6 +223,23 @@ export const findingText = {
 };
 
 // ---------------------------------------------------------------------------------------------
+// sim: simulation spec and `shiftload simulate`
+// ---------------------------------------------------------------------------------------------
+
+export const simMsg = {
+  specNotMapping: (file: string) => `${file}: expected a YAML mapping at the top level (a shiftload-simulation/1 spec)`,
+  specYaml: (file: string, line: number, reason: string) => `${file}: line ${line}: not valid YAML (${reason})`,
+  specFormat: (file: string, got: string) => `${file}: format: expected "shiftload-simulation/1", got ${got}`,
+  specField: (file: string, path: string, expected: string, got: string) => `${file}: ${path}: expected ${expected}, got ${got}`,
+  specUnknownRef: (file: string, path: string, what: string, got: string, valid: string[]) =>
+    `${file}: ${path}: unknown ${what} "${got}" (valid: ${valid.join(', ')})`,
+  specUnknownVariant: (file: string, got: string, valid: string[]) => `${file}: variants: no variant "${got}" (valid: ${valid.join(', ')})`,
+  specDuplicate: (file: string, path: string, got: string) => `${file}: ${path}: "${got}" appears twice`,
+  gapDesign: (file: string, path: string, detail: string) => `${file}: ${path}: ${detail}`,
+  outNotFolder: (dir: string) => `${dir}: is a file, expected an output folder`,
+};
+
+// ---------------------------------------------------------------------------------------------
 // report
 // ---------------------------------------------------------------------------------------------
 

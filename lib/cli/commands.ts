@@ -8,6 +8,7 @@ import { analyzeCommand } from './analyze.js';
 import { checkCommand } from './check.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
+import { simulateCommand } from './simulate.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const commands: CommandModule<any, any>[] = [
@@ -18,4 +19,5 @@ export const commands: CommandModule<any, any>[] = [
   schemaCommand,
   inspectCommand,
   convertCommand,
+  simulateCommand,
 ];
