@@ -103,6 +103,16 @@ async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunk
   }
   // Onsets and record times relative to the file start (the first record's time-keeping TAL).
   const t0 = recordStarts[0];
+  if (h.plus === 'C') {
+    // A continuous file whose records jump would give wrong times: refuse it, as EDFlib does.
+    const tol = IO_DEFAULTS.continuous_tolerance_s;
+    for (let r = 1; r < recordStarts.length; r++) {
+      const expected = t0 + r * h.record_duration_s;
+      if (Math.abs(recordStarts[r] - expected) > tol) {
+        throw new InputError(ioMsg.notContinuous(file, r, h.header_bytes + r * h.record_size + aLo, recordStarts[r], expected), { file });
+      }
+    }
+  }
   if (t0 !== 0) {
     for (const x of annotations) x.onset_s -= t0;
     for (let r = 0; r < recordStarts.length; r++) recordStarts[r] -= t0;

@@ -112,3 +112,17 @@ describe('openRecording(EDF+ with a bad annotation)', () => {
     expect((await refusal(p)).message).toMatch(/data record 3 \(byte \d+\) has no time-keeping annotation/);
   });
 });
+
+describe('openRecording(EDF+C whose records jump)', () => {
+  it('is refused naming the record: a discontinuous file must say EDF+D', async () => {
+    const { EdfWriter } = await import('../../lib/io/edf-writer.js');
+    const p = join(tmp, 'jump.edf');
+    const w = new EdfWriter(p, [{ label: 'A', unit: 'uV', rate_hz: 10, physical_min: -1, physical_max: 1 }]);
+    w.write([new Float64Array(40)]);
+    w.close();
+    const b = Buffer.from(readFileSync(p));
+    b.write('+5', b.indexOf('+2\x14\x14\x00', 0, 'latin1'), 'latin1');
+    writeFileSync(p, b);
+    expect((await refusal(p)).message).toMatch(/data record 3 \(byte \d+\) starts at 5 s by its time-keeping annotation, expected 2 s/);
+  });
+});
