@@ -77,7 +77,10 @@ async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunk
   const aLo = ann[0].offset_in_record;
   const last = ann[ann.length - 1];
   const aHi = last.offset_in_record + last.samples_per_record * bps;
-  const recordStarts = new Float64Array(h.records);
+  // Record start times are kept only for EDF+D (8 bytes per record); EDF+C is checked on the fly.
+  const recordStarts = h.plus === 'D' ? new Float64Array(h.records) : null;
+  let t0 = NaN;
+  const tol = IO_DEFAULTS.continuous_tolerance_s;
   // Annotation bytes are usually a small tail of each record: read only them, one read per record,
   // unless records are small enough that reading whole groups of records is cheaper.
   const perRecord = h.record_size > 16384 && (aHi - aLo) * 8 < h.record_size;
@@ -97,27 +100,22 @@ async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunk
         const en = st + s.samples_per_record * bps;
         const fileOff = h.header_bytes + r * h.record_size + s.offset_in_record;
         const t = parseTals(file, r, buf, st, en, fileOff, annotations, a === 0);
-        if (a === 0) recordStarts[r] = t;
+        if (a !== 0) continue;
+        if (r === 0) t0 = t;
+        if (recordStarts !== null) recordStarts[r] = t;
+        else if (Math.abs(t - (t0 + r * h.record_duration_s)) > tol) {
+          // A continuous file whose records jump would give wrong times: refuse it, as EDFlib does.
+          throw new InputError(ioMsg.notContinuous(file, r, fileOff, t, t0 + r * h.record_duration_s), { file });
+        }
       }
     }
   }
   // Onsets and record times relative to the file start (the first record's time-keeping TAL).
-  const t0 = recordStarts[0];
-  if (h.plus === 'C') {
-    // A continuous file whose records jump would give wrong times: refuse it, as EDFlib does.
-    const tol = IO_DEFAULTS.continuous_tolerance_s;
-    for (let r = 1; r < recordStarts.length; r++) {
-      const expected = t0 + r * h.record_duration_s;
-      if (Math.abs(recordStarts[r] - expected) > tol) {
-        throw new InputError(ioMsg.notContinuous(file, r, h.header_bytes + r * h.record_size + aLo, recordStarts[r], expected), { file });
-      }
-    }
-  }
   if (t0 !== 0) {
     for (const x of annotations) x.onset_s -= t0;
-    for (let r = 0; r < recordStarts.length; r++) recordStarts[r] -= t0;
+    if (recordStarts !== null) for (let r = 0; r < recordStarts.length; r++) recordStarts[r] -= t0;
   }
-  return { annotations, recordStarts: h.plus === 'D' ? recordStarts : null, subsecond: t0 };
+  return { annotations, recordStarts, subsecond: t0 };
 }
 
 async function readExactly(fh: FileHandle, buf: Buffer, length: number, position: number): Promise<void> {
