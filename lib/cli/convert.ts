@@ -81,8 +81,9 @@ export async function convertRecording(input: string, o: ConvertOptions): Promis
     const info = rec.info;
     const sel = selectSignals(info, o.signals);
     const start = o.start_s ?? 0;
-    const end = o.end_s ?? info.duration_s;
-    if (!(start >= 0 && end > start && end <= info.duration_s + 1e-9)) throw new UsageError(ioMsg.convertSpan(start, end, info.duration_s));
+    const last = info.end_s ?? info.duration_s; // EDF+D: clock end of the last record
+    const end = o.end_s ?? last;
+    if (!(start >= 0 && end > start && end <= last + 1e-9)) throw new UsageError(ioMsg.convertSpan(start, end, last));
     const selInfo = sel.map((i) => info.signals[i]);
     const stage = o.stage ? o.stage(selInfo) : null;
     const rates = stage ? stage.rates_hz : selInfo.map((s) => s.rate_hz);

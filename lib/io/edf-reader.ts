@@ -55,6 +55,7 @@ export async function openEdf(file: string, fh: FileHandle, fileSize: number, op
     start: header.start,
     ...(scan.subsecond !== 0 ? { start_subsecond_s: scan.subsecond } : {}),
     duration_s: header.records * dur,
+    ...(scan.recordStarts !== null ? { end_s: scan.recordStarts[header.records - 1] + dur } : {}),
     signals,
     annotations: scan.annotations,
     record_duration_s: dur,
@@ -139,7 +140,7 @@ async function* readRecords(
   const dur = h.record_duration_s;
   const startS = ro.start_s ?? 0;
   // EDF+D: the default end is the end of the last record by its own clock time
-  const endS = ro.end_s ?? (recordStarts !== null ? recordStarts[h.records - 1] + h.record_duration_s : info.duration_s);
+  const endS = ro.end_s ?? info.end_s ?? info.duration_s;
   const digital = ro.digital === true;
   const spr = sel.map((s) => s.samples_per_record);
   const rate = spr.map((n) => n / dur);
