@@ -1,6 +1,8 @@
 // The list of command modules, one file per command. Add a new command here.
 import type { CommandModule } from 'yargs';
 
+import { convertCommand } from './convert.js';
+import { inspectCommand } from './inspect.js';
 import { versionInfoCommand } from './version-info.js';
 import { checkCommand } from './check.js';
 import { initCommand } from './init.js';
@@ -11,5 +13,7 @@ export const commands: CommandModule<any, any>[] = [
   versionInfoCommand,
   initCommand,
   checkCommand,
+  inspectCommand,
+  convertCommand,
   schemaCommand,
 ];

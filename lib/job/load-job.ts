@@ -125,16 +125,19 @@ class JobContext {
   }
 
   /** Header facts of a file (each file described once); null with an issue when unreadable. */
-  async describe(abs: string, written: string, path: KeyPathStep[]): Promise<RecordingDescription | null> {
-    let p = this.described.get(abs);
+  async describe(abs: string, written: string, path: KeyPathStep[], rate_hz: number | null): Promise<RecordingDescription | null> {
+    const key = `${abs}\u0000${rate_hz ?? ''}`;
+    let p = this.described.get(key);
     if (!p) {
-      p = this.describeFn(abs).catch((e: unknown) => (e instanceof Error ? e : new Error(String(e))));
-      this.described.set(abs, p);
+      p = this.describeFn(abs, rate_hz === null ? {} : { rate_hz }).catch((e: unknown) => (e instanceof Error ? e : new Error(String(e))));
+      this.described.set(key, p);
     }
     const d = await p;
     if (d instanceof Error) {
       if (!(d instanceof InputError)) throw d;
-      this.issue(path, jobMsg.cannotDescribe(written, d.message));
+      // The reader names the absolute path; the user wrote a relative one.
+      const reason = d.message.split(`${abs}: `).join('').split(abs).join(written);
+      this.issue(path, jobMsg.cannotDescribe(written, reason));
       return null;
     }
     return d;
@@ -217,7 +220,8 @@ async function resolveRecording(
   settings: Settings, ctx: JobContext,
 ): Promise<StudyRecording | null> {
   const abs = ctx.inputFile(r.file, [...rPath, 'file']);
-  const desc = abs === null ? null : await ctx.describe(abs, r.file, [...rPath, 'file']);
+  const rate = r.rate_hz ?? null;
+  const desc = abs === null ? null : await ctx.describe(abs, r.file, [...rPath, 'file'], rate);
 
   // Channels: signals exist, no signal or muscle twice, band below Nyquist.
   const channels: StudyChannel[] = [];
@@ -238,11 +242,11 @@ async function resolveRecording(
       ctx.issue([...cPath, 'signal'], jobMsg.noSignal(c.signal, r.file, desc.signals.map((s) => s.label)));
       return;
     }
-    const rate = desc.signals[idx].rate_hz;
-    if (!(settings.band_hz[1] < rate / 2)) {
-      ctx.issue(['settings', 'band_hz'], jobMsg.bandAboveNyquist(settings.band_hz[1], c.signal, r.file, rate));
+    const fs = desc.signals[idx].rate_hz;
+    if (!(settings.band_hz[1] < fs / 2)) {
+      ctx.issue(['settings', 'band_hz'], jobMsg.bandAboveNyquist(settings.band_hz[1], c.signal, r.file, fs));
     }
-    channels.push({ signal: c.signal, signalIndex: idx, muscle, rate_hz: rate });
+    channels.push({ signal: c.signal, signalIndex: idx, muscle, rate_hz: fs });
   });
 
   // Signals missing from the field recording are reported there once, not again per span file.
@@ -288,6 +292,7 @@ async function resolveRecording(
     id: `${workerId}/${r.file}`,
     file: abs,
     fileAsWritten: r.file,
+    rate_hz: rate,
     condition: r.condition,
     notes: r.notes ?? null,
     duration_s: desc.duration_s,
@@ -314,7 +319,9 @@ async function resolveSpan(
   const filePath = sp.file !== undefined ? [...sPath, 'file'] : [...rPath, 'file'];
   const abs = ctx.inputFile(written, filePath);
   if (abs === null) return [];
-  const desc = await ctx.describe(abs, written, filePath);
+  const sameFile = abs === resolve(ctx.baseDir, r.file);
+  const rate = sp.rate_hz ?? (sameFile ? r.rate_hz ?? null : null);
+  const desc = await ctx.describe(abs, written, filePath, rate);
   if (desc === null) return [];
 
   // The recording's channels must exist in the span's file too (same signal labels).
@@ -351,7 +358,7 @@ async function resolveSpan(
     if (!(t.start_s < t.end_s)) { ctx.issue(sPath, jobMsg.segmentOrder(t.start_s, t.end_s)); continue; }
     if (t.end_s > desc.duration_s + TIME_EPS) { ctx.issue(sPath, jobMsg.segmentOutside(t.start_s, t.end_s, desc.duration_s, written)); continue; }
     if (signalIndices.every((i) => i >= 0)) {
-      out.push({ file: abs, fileAsWritten: written, start_s: t.start_s, end_s: t.end_s, annotation: t.annotation, signalIndices });
+      out.push({ file: abs, fileAsWritten: written, rate_hz: rate, start_s: t.start_s, end_s: t.end_s, annotation: t.annotation, signalIndices });
     }
   }
   return out;
