@@ -70,6 +70,9 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) total += sp.end_s - sp.start_s;
   }
   let done = 0;
+  // CSV recordings without a time column carry their rate in the job.
+  const openOptions = (rate_hz: number | null): OpenOptions | undefined =>
+    rate_hz === null ? options.open : { ...options.open, rate_hz };
   const progress = (d: number, note: string) => options.onProgress?.(Math.min(total, d), total, note);
 
   // Reference and rest values are cached per span and signal: a worker-level reference serves
@@ -82,7 +85,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     const from = Math.max(0, span.start_s - SPAN_MARGIN_S);
     const res = await readEnvelopes({
       file: span.file, signals: [signal], start_s: from, end_s: span.end_s + SPAN_MARGIN_S, filter,
-      envelope: { window_s, rate_hz: rateHz }, open: options.open,
+      envelope: { window_s, rate_hz: rateHz }, open: openOptions(span.rate_hz),
     });
     // Keep only windows lying wholly inside the span (centre within half a window of its ends).
     const env = res.channels[0]!.envelope;
@@ -141,7 +144,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
         file: rec.file, signals: rec.channels.map((ch) => ch.signalIndex), start_s: 0, end_s: null, filter,
         envelope: { window_s: s.rms_window_s, rate_hz: rate },
         second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
-        open: options.open,
+        open: openOptions(rec.rate_hz),
         onProgress: (d) => progress(base + d, rec.fileAsWritten),
       });
       done = base + rec.duration_s;
@@ -280,14 +283,14 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   }
 
   // Every input file with its fingerprint.
-  const files = new Map<string, string>();
+  const files = new Map<string, { shown: string; rate_hz: number | null }>();
   for (const w of study.workers) for (const r of w.recordings) {
-    files.set(r.file, r.fileAsWritten);
-    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, sp.fileAsWritten);
+    files.set(r.file, { shown: r.fileAsWritten, rate_hz: r.rate_hz });
+    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, { shown: sp.fileAsWritten, rate_hz: sp.rate_hz });
   }
   const inputs: StudyResults['inputs'] = [];
-  for (const [abs, shown] of files) {
-    const rec = await openRecording(abs);
+  for (const [abs, { shown, rate_hz }] of files) {
+    const rec = await openRecording(abs, openOptions(rate_hz));
     const duration_s = rec.info.duration_s;
     await rec.close();
     inputs.push({ file: shown, sha256: await sha256File(abs), duration_s });
