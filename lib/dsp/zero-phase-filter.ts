@@ -150,7 +150,8 @@ export class ZeroPhaseFilter {
     while (i < to) {
       const m = Math.min(cap - this.bufLen, to - i);
       const b0 = this.bufLen;
-      for (let j = 0; j < m; j++) this.buf[b0 + j] = src[i + j];
+      if (src instanceof Float64Array) this.buf.set(src.subarray(i, i + m), b0);
+      else for (let j = 0; j < m; j++) this.buf[b0 + j] = src[i + j];
       sosfiltInPlace(this.sos, this.fstate, this.buf, b0, b0 + m);
       this.bufLen += m;
       i += m;
