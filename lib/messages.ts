@@ -103,6 +103,13 @@ export const dspMsg = {
   frequencyRange: (fmin: number, fmax: number) => `frequency range must have fminHz below fmaxHz, got ${fmin}…${fmax} Hz`,
   spectrumLength: (lf: number, lp: number) => `frequencies and PSD must have the same length, got ${lf} and ${lp}`,
   medianConvention: (got: string) => `median frequency convention must be one of bin, interp, got ${got}`,
+  // spectrum command
+  spectrumUnknownSignal: (name: string, labels: string) => `--signal: no signal named '${name}' (signals: ${labels})`,
+  spectrumSpan: (start: number, end: number, duration: number) =>
+    `--start ${start} / --end ${end}: expected 0 <= start < end <= ${duration} s (recording duration)`,
+  spectrumOverlap: (got: number) => `--overlap must be a fraction from 0 to below 1 (e.g. 0.5), got ${got}`,
+  spectrumTooShort: (file: string, label: string, samples: number, nperseg: number) =>
+    `${file}: signal '${label}': the span holds ${samples} samples, fewer than one segment (nperseg ${nperseg}); use a longer span or a smaller --nperseg`,
 };
 
 // ---------------------------------------------------------------------------------------------

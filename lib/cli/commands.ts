@@ -7,6 +7,7 @@ import { versionInfoCommand } from './version-info.js';
 import { checkCommand } from './check.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
+import { spectrumCommand } from './spectrum.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const commands: CommandModule<any, any>[] = [
@@ -16,4 +17,5 @@ export const commands: CommandModule<any, any>[] = [
   schemaCommand,
   inspectCommand,
   convertCommand,
+  spectrumCommand,
 ];

@@ -185,20 +185,23 @@ export function suggestBand(f: ArrayLike<number>, psd: ArrayLike<number>, option
   let loR = Math.max(1, Math.round(lo));
   let hiR = Math.min(Math.round(hi), maxHi);
   if (!(hiR > loR)) { loR = Math.max(1, Math.round(f[1])); hiR = maxHi; }
-  const floorText = rest ? 'the rest-recording spectrum' : `a noise floor of ${floor.toPrecision(3)} (median of ${fmt(nyq * (1 - o.floorFraction))}–${fmt(nyq)} Hz)`;
-  if (total > 0) {
-    reasons.push(`After subtracting ${floorText}, the spectrum stays above half (−3 dB) of its typical level between ${loR} and ${hiR} Hz (typical level: the median where the central ${pct(o.highQuantile - o.lowQuantile)} of the EMG power lies), so a ${loR}–${hiR} Hz band-pass is suggested.`);
-  } else {
-    reasons.push(`No power above ${floorText}; the band ${loR}–${hiR} Hz is only a placeholder.`);
-  }
-
-  // 4. low-frequency share
+  // 4. low-frequency share (mains removed, DC bin excluded)
   let all = 0, low = 0;
   for (let k = 1; k < n; k++) { all += p[k]; if (f[k] < o.lowFrequencyHz) low += p[k]; }
   const lfr = all > 0 ? low / all : NaN;
+  const raised = lfr > o.lowFrequencyWarn && loR < o.lowFrequencyHz;
+  const found = loR;
+  if (lfr > o.lowFrequencyWarn) loR = Math.max(loR, o.lowFrequencyHz);
+
+  const floorText = rest ? 'the rest-recording spectrum' : `a noise floor of ${floor.toPrecision(3)} (median of ${fmt(nyq * (1 - o.floorFraction))}–${fmt(nyq)} Hz)`;
+  if (total > 0) {
+    reasons.push(`After subtracting ${floorText}, the spectrum stays above half (−3 dB) of its typical level between ${found} and ${hiR} Hz (typical level: the median where the central ${pct(o.highQuantile - o.lowQuantile)} of the EMG power lies), so a ${loR}–${hiR} Hz band-pass is suggested` +
+      (raised ? ` (low cut-off raised from ${found} to ${o.lowFrequencyHz} Hz, see below).` : '.'));
+  } else {
+    reasons.push(`No power above ${floorText}; the band ${loR}–${hiR} Hz is only a placeholder.`);
+  }
   if (lfr > o.lowFrequencyWarn) {
     reasons.push(`${pct(lfr)} of the power lies below ${o.lowFrequencyHz} Hz (more than ${pct(o.lowFrequencyWarn)}): movement artifact or baseline drift is likely; keep the low cut-off at ${o.lowFrequencyHz} Hz or above.`);
-    loR = Math.max(loR, o.lowFrequencyHz);
   } else if (Number.isFinite(lfr)) {
     reasons.push(`${pct(lfr)} of the power lies below ${o.lowFrequencyHz} Hz: little movement artifact or drift.`);
   }
