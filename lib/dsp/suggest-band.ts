@@ -107,7 +107,7 @@ function cumulativeAt(f: ArrayLike<number>, p: Float64Array, total: number, q: n
  */
 export function suggestBand(f: ArrayLike<number>, psd: ArrayLike<number>, options: SuggestBandOptions = {}): BandSuggestion {
   if (f.length !== psd.length) throw new UsageError(dspMsg.spectrumLength(f.length, psd.length));
-  if (f.length < 8) throw new UsageError(`spectrum must have at least 8 bins, got ${f.length}`);
+  if (f.length < 8) throw new UsageError(dspMsg.spectrumBins(f.length));
   const d = SUGGEST_BAND_DEFAULTS;
   const o = {
     lowQuantile: options.lowQuantile ?? d.lowQuantile, highQuantile: options.highQuantile ?? d.highQuantile,

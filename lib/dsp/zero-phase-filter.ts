@@ -14,6 +14,7 @@
 // Work: the backward pass runs (B + L)/B times per sample (≈ 1.02 for a 20–450 Hz band-pass at
 // 2 kHz with B = 64k; ≈ 1.2 with a 50 Hz notch, whose slow poles need L ≈ 11.6k).
 import { UsageError } from '../errors.js';
+import { dspMsg } from '../messages.js';
 import { checkSos } from './check-sos.js';
 import type { Sos } from './sos.js';
 import { sosfiltInPlace, sosfiltReverseInPlace } from './sosfilt-in-place.js';
@@ -75,7 +76,7 @@ export class ZeroPhaseFilter {
     this.pad = this.padlen;
     this.overlap = Math.max(zeroPhaseOverlap(sos, options.tolerance ?? 1e-12), this.padlen + 1);
     const b = options.blockSize ?? 65536;
-    if (!(Number.isInteger(b) && b >= 1)) throw new UsageError(`blockSize must be a whole number of samples ≥ 1, got ${b}`);
+    if (!(Number.isInteger(b) && b >= 1)) throw new UsageError(dspMsg.blockSize(b));
     this.blockSize = Math.max(b, 4 * this.overlap);
     this.buf = new Float64Array(this.blockSize + this.overlap);
     this.scratch = new Float64Array(this.blockSize + this.overlap);
@@ -85,7 +86,7 @@ export class ZeroPhaseFilter {
 
   /** Feed the next chunk (not modified); returns the outputs that are final now. */
   push(x: ArrayLike<number>): Float64Array {
-    if (this.flushed) throw new UsageError('ZeroPhaseFilter: push() after flush()');
+    if (this.flushed) throw new UsageError(dspMsg.pushAfterFlush());
     const n = x.length;
     // keep the last padlen + 1 raw samples for the odd extension at the end
     const rl = this.recent.length;
