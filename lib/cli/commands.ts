@@ -4,9 +4,11 @@ import type { CommandModule } from 'yargs';
 import { convertCommand } from './convert.js';
 import { inspectCommand } from './inspect.js';
 import { versionInfoCommand } from './version-info.js';
+import { analyzeCommand } from './analyze.js';
 import { checkCommand } from './check.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
+import { simulateCommand } from './simulate.js';
 import { spectrumCommand } from './spectrum.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -14,8 +16,10 @@ export const commands: CommandModule<any, any>[] = [
   versionInfoCommand,
   initCommand,
   checkCommand,
+  analyzeCommand,
   schemaCommand,
   inspectCommand,
   convertCommand,
   spectrumCommand,
+  simulateCommand,
 ];
