@@ -1,6 +1,8 @@
 // Bench: zero-phase band-pass + RMS envelope throughput on a long synthetic recording, streamed in
 // chunks and generated on the fly (never held whole). Prints M samples/s and peak RSS.
-// Run alone: node dist/bench/dsp-throughput.js [hours] [channels] [fs]   (defaults 8 h, 4 ch, 2000 Hz)
+// Run alone: node dist/bench/dsp-throughput.js [hours] [channels] [fs] [50]   (defaults 8 h, 4 ch,
+// 2000 Hz, no notch; a 4th argument 50 adds 50 Hz notches at 50, 100, 150 Hz)
+import { pathToFileURL } from 'node:url';
 import { EnvelopePipeline } from '../dsp/envelope-pipeline.js';
 
 export interface DspBenchResult {
@@ -56,9 +58,9 @@ export function runDspThroughput(hours = 8, channels = 4, fs = 2000, mainsHz: 50
 }
 
 // run when executed directly
-if (import.meta.url === `file://${process.argv[1]}`) {
-  const [h, c, f] = process.argv.slice(2).map(Number);
-  const r = runDspThroughput(h || 8, c || 4, f || 2000);
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  const [h, c, f, mains] = process.argv.slice(2).map(Number);
+  const r = runDspThroughput(h || 8, c || 4, f || 2000, mains === 50 ? 50 : null);
   process.stdout.write(`${r.name}\n  ${(r.samples / 1e6).toFixed(1)} M samples in ${r.seconds.toFixed(2)} s wall / ${r.cpu_seconds.toFixed(2)} s CPU: ` +
     `${r.msamples_per_s.toFixed(1)} M samples/s wall, ${r.msamples_per_cpu_s.toFixed(1)} per CPU second (signal generation included), ` +
     `peak RSS ${r.peak_rss_mb.toFixed(0)} MB, ${r.envelope_samples} envelope samples\n`);

@@ -2,8 +2,9 @@
 // direct form II, run in place over part of a Float64Array, forwards or backwards. Per section and
 // sample: y = b0·x + z1; z1 = b1·x − a1·y + z2; z2 = b2·x − a2·y (scipy's _sosfilt, same arithmetic,
 // so results are bit-identical to a sample-by-sample cascade).
-// Speed: the recurrence is latency-bound, so sections are fused four (or two) at a time into one
-// pass over the block: the CPU then overlaps the independent dependency chains of the sections.
+// Speed: the recurrence is latency-bound, so sections are fused four at a time into one
+// pass over the block (then three, two, one for the rest): the CPU then overlaps the independent
+// dependency chains of the sections.
 // Measured with V8 on 10 M samples, 4 sections: one section per pass 35–70 M samples/s, two fused
 // 52–130, four fused 75–168 (loaded 2-core machine). Coefficients and state live in locals.
 import type { Sos } from './sos.js';
@@ -41,6 +42,29 @@ export function sosfiltInPlace(sos: Sos, state: Float64Array, buf: Float64Array,
     }
     state[2 * s] = p1; state[2 * s + 1] = p2; state[2 * s + 2] = q1; state[2 * s + 3] = q2;
     state[2 * s + 4] = r1; state[2 * s + 5] = r2; state[2 * s + 6] = t1; state[2 * s + 7] = t2;
+  }
+  for (; s + 3 <= ns; s += 3) {
+    const o = s * 6;
+    const a0 = sos[o], a1 = sos[o + 1], a2 = sos[o + 2], a4 = sos[o + 4], a5 = sos[o + 5];
+    const b0 = sos[o + 6], b1 = sos[o + 7], b2 = sos[o + 8], b4 = sos[o + 10], b5 = sos[o + 11];
+    const c0 = sos[o + 12], c1 = sos[o + 13], c2 = sos[o + 14], c4 = sos[o + 16], c5 = sos[o + 17];
+    let p1 = state[2 * s], p2 = state[2 * s + 1], q1 = state[2 * s + 2], q2 = state[2 * s + 3];
+    let r1 = state[2 * s + 4], r2 = state[2 * s + 5];
+    for (let i = start; i < end; i++) {
+      const x = buf[i];
+      const y = a0 * x + p1;
+      p1 = a1 * x - a4 * y + p2;
+      p2 = a2 * x - a5 * y;
+      const u = b0 * y + q1;
+      q1 = b1 * y - b4 * u + q2;
+      q2 = b2 * y - b5 * u;
+      const v = c0 * u + r1;
+      r1 = c1 * u - c4 * v + r2;
+      r2 = c2 * u - c5 * v;
+      buf[i] = v;
+    }
+    state[2 * s] = p1; state[2 * s + 1] = p2; state[2 * s + 2] = q1; state[2 * s + 3] = q2;
+    state[2 * s + 4] = r1; state[2 * s + 5] = r2;
   }
   for (; s + 2 <= ns; s += 2) {
     const o = s * 6;
@@ -108,6 +132,29 @@ export function sosfiltReverseInPlace(sos: Sos, state: Float64Array, buf: Float6
     }
     state[2 * s] = p1; state[2 * s + 1] = p2; state[2 * s + 2] = q1; state[2 * s + 3] = q2;
     state[2 * s + 4] = r1; state[2 * s + 5] = r2; state[2 * s + 6] = t1; state[2 * s + 7] = t2;
+  }
+  for (; s + 3 <= ns; s += 3) {
+    const o = s * 6;
+    const a0 = sos[o], a1 = sos[o + 1], a2 = sos[o + 2], a4 = sos[o + 4], a5 = sos[o + 5];
+    const b0 = sos[o + 6], b1 = sos[o + 7], b2 = sos[o + 8], b4 = sos[o + 10], b5 = sos[o + 11];
+    const c0 = sos[o + 12], c1 = sos[o + 13], c2 = sos[o + 14], c4 = sos[o + 16], c5 = sos[o + 17];
+    let p1 = state[2 * s], p2 = state[2 * s + 1], q1 = state[2 * s + 2], q2 = state[2 * s + 3];
+    let r1 = state[2 * s + 4], r2 = state[2 * s + 5];
+    for (let i = end - 1; i >= start; i--) {
+      const x = buf[i];
+      const y = a0 * x + p1;
+      p1 = a1 * x - a4 * y + p2;
+      p2 = a2 * x - a5 * y;
+      const u = b0 * y + q1;
+      q1 = b1 * y - b4 * u + q2;
+      q2 = b2 * y - b5 * u;
+      const v = c0 * u + r1;
+      r1 = c1 * u - c4 * v + r2;
+      r2 = c2 * u - c5 * v;
+      buf[i] = v;
+    }
+    state[2 * s] = p1; state[2 * s + 1] = p2; state[2 * s + 2] = q1; state[2 * s + 3] = q2;
+    state[2 * s + 4] = r1; state[2 * s + 5] = r2;
   }
   for (; s + 2 <= ns; s += 2) {
     const o = s * 6;
