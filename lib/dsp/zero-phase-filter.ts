@@ -12,7 +12,7 @@
 // exactly as scipy; so the first and last outputs are exact and the middle ones are within the bound.
 // Memory: two Float64Arrays of B + L samples per filter, whatever the stream length.
 // Work: the backward pass runs (B + L)/B times per sample (≈ 1.02 for a 20–450 Hz band-pass at
-// 2 kHz with B = 64k; ≈ 1.2 with a 50 Hz notch, whose slow poles need L ≈ 11.6k).
+// 2 kHz with B = 64k; ≈ 1.125 with a 50 Hz notch, whose slow poles need L ≈ 11.6k, so B = 8·L).
 import { UsageError } from '../errors.js';
 import { dspMsg } from '../messages.js';
 import { checkSos } from './check-sos.js';
@@ -25,7 +25,7 @@ import { zeroPhaseOverlap } from './zero-phase-overlap.js';
 export interface ZeroPhaseFilterOptions {
   /** Edge extension at the true start and end: 'odd' (scipy's default) or 'none'. @default 'odd' */
   padtype?: 'odd' | 'none';
-  /** Outputs finished per backward run, samples (at least 4·overlap is used). @default 65536 */
+  /** Outputs finished per backward run, samples (at least 8·overlap is used). @default 65536 */
   blockSize?: number;
   /** Bound on the block error as a fraction of full scale (chooses the overlap). @default 1e-12 */
   tolerance?: number;
@@ -77,7 +77,7 @@ export class ZeroPhaseFilter {
     this.overlap = Math.max(zeroPhaseOverlap(sos, options.tolerance ?? 1e-12), this.padlen + 1);
     const b = options.blockSize ?? 65536;
     if (!(Number.isInteger(b) && b >= 1)) throw new UsageError(dspMsg.blockSize(b));
-    this.blockSize = Math.max(b, 4 * this.overlap);
+    this.blockSize = Math.max(b, 8 * this.overlap);
     this.buf = new Float64Array(this.blockSize + this.overlap);
     this.scratch = new Float64Array(this.blockSize + this.overlap);
     this.head = new Float64Array(this.padlen + 1);
