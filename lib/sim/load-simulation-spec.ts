@@ -45,7 +45,12 @@ export function parseSimulationSpec(text: string, file: string): SimulationSpec 
   const muscles: MuscleSpec[] = r.list(doc, 'muscles', 'muscles').map((m, i) => {
     const p = `muscles[${i}]`;
     const o = r.obj(m, p);
-    return { id: r.str(o, 'id', p), signal: r.str(o, 'signal', p), muscle: r.str(o, 'muscle', p) };
+    const signal = r.str(o, 'signal', p);
+    // EDF label field: 16 printable ASCII characters
+    if (signal.length > 16 || !/^[\x20-\x7e]+$/.test(signal)) {
+      throw new InputError(simMsg.specField(file, `${p}.signal`, 'at most 16 printable ASCII characters (EDF label)', show(signal)), { file, where: `${p}.signal` });
+    }
+    return { id: r.str(o, 'id', p), signal, muscle: r.str(o, 'muscle', p) };
   });
   r.unique(muscles.map((m) => m.id), 'muscles');
   const muscleIds = muscles.map((m) => m.id);
