@@ -12,6 +12,7 @@ export const msg = {
   emptyFile: (file: string) => `${file}: file is empty`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read (${reason})`,
   outputIsInput: (file: string) => `${file}: output path is also an input; refusing to overwrite an input`,
+  outputNotFolder: (dir: string) => `${dir}: output path exists and is not a folder`,
   outputExists: (dir: string) => `${dir}: output folder exists and is not empty; use --force to reuse it`,
   badOption: (option: string, expected: string, got: string) => `--${option}: expected ${expected}, got ${got}`,
   parameter: (name: string, range: string, got: string | number) => `${name} must be ${range}, got ${got}`,
@@ -48,6 +49,13 @@ export const ioMsg = {
     `${file}: annotation in data record ${record + 1} (byte ${offset}): ${what}`,
   noTimekeeping: (file: string, record: number, offset: number) =>
     `${file}: data record ${record + 1} (byte ${offset}) has no time-keeping annotation (EDF+ requires one per record)`,
+  notContinuous: (file: string, record: number, offset: number, t: number, expected: number) =>
+    `${file}: data record ${record + 1} (byte ${offset}) starts at ${t} s by its time-keeping annotation, expected ${expected} s in a continuous (EDF+C/BDF+C) file`,
+  writerDigital: (label: string, lo: number, hi: number, min: number, max: number) =>
+    `EDF writer: signal '${label}': digital range ${lo}..${hi} must lie within ${min}..${max} with minimum below maximum`,
+  writerStart: (start: string) => `EDF writer: start '${start}' must be YYYY-MM-DDTHH:MM:SS`,
+  writerSubsecond: (x: number) => `EDF writer: start_subsecond_s must be in [0, 1), got ${x}`,
+  writerNoSignals: () => 'EDF writer: at least one signal is needed',
   unknownSignal: (file: string, index: number, count: number) => `${file}: no signal with index ${index} (file has ${count})`,
   // CSV / TSV
   csvNoHeader: (file: string) => `${file}:1: expected a header row with channel names`,
@@ -208,6 +216,19 @@ export const exposureMsg = {
     `compare measure must be one of ${valid.join(', ')} or p<q>, got ${got}`,
 };
 
+/** Texts of findings raised by the analysis (lib/study/run-study.ts). */
+export const findingText = {
+  noiseUnavailable: (signal: string) => `no usable rest data for ${signal}; the envelope is not noise-corrected`,
+  referenceZero: (signal: string, noise: number | null) => `reference amplitude of ${signal} is not above the noise level${noise === null ? '' : ` (${noise.toPrecision(3)} µV)`}; values cannot be normalized`,
+  noReference: (signal: string, method: string) => `no ${method.toUpperCase()} reference value for ${signal}; its normalized values are left empty`,
+  thresholdNotConverted: (signal: string) => `the %MVE gap threshold could not be converted to %RVE for ${signal} (no MVE reference); gap and rest figures are left empty`,
+  clipping: (clipped: number, samples: number) => `${clipped} of ${samples} samples (${(100 * clipped / Math.max(1, samples)).toPrecision(2)} %) at the recorder's digital limits (clipping); amplitudes in those spans are underestimated`,
+  segmentTooShort: (label: string, length: number, window: number) => `segment '${label}' lasts ${length.toPrecision(3)} s, shorter than the ${window} s RMS window; its figures rest on very few values`,
+  excludedTime: (label: string, excluded: number, length: number) => `${excluded.toFixed(1)} s of ${length.toFixed(1)} s in segment '${label}' had no valid data (missing or NaN samples) and were left out`,
+  referenceWeak: (signal: string, p90: number) => `${signal}: task values reach ${p90.toFixed(0)} %MVE (90th percentile above 100 %); the reference contraction was probably not maximal, so %MVE figures are overstated`,
+  discontinuous: (n: number) => `the recording has ${n} interruption(s) (EDF+D); filters restart after each and the time between records counts as no data`,
+};
+
 // ---------------------------------------------------------------------------------------------
 // sim: simulation spec and `shiftload simulate`
 // ---------------------------------------------------------------------------------------------
@@ -228,3 +249,12 @@ export const simMsg = {
 // ---------------------------------------------------------------------------------------------
 // report
 // ---------------------------------------------------------------------------------------------
+
+export const reportMsg = {
+  notJson: (file: string, reason: string) => `${file}: not valid JSON (${reason}); expected a shiftload results file`,
+  badFormat: (file: string, got: string) => `${file}: format: expected "shiftload-results/1", got ${got}`,
+  badField: (file: string, field: string, expected: string, got: string) => `${file}: ${field}: expected ${expected}, got ${got}`,
+  noRows: (file: string) => `${file}: rows: expected at least one result row, got none`,
+  wrote: (file: string, pages: number, ms: number) => `wrote ${file} (${pages} pages, ${ms} ms)\n`,
+  wroteSvg: (dir: string, n: number) => `wrote ${n} SVG charts to ${dir}\n`,
+};

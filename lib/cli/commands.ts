@@ -4,6 +4,7 @@ import type { CommandModule } from 'yargs';
 import { convertCommand } from './convert.js';
 import { inspectCommand } from './inspect.js';
 import { versionInfoCommand } from './version-info.js';
+import { analyzeCommand } from './analyze.js';
 import { checkCommand } from './check.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
@@ -14,6 +15,7 @@ export const commands: CommandModule<any, any>[] = [
   versionInfoCommand,
   initCommand,
   checkCommand,
+  analyzeCommand,
   schemaCommand,
   inspectCommand,
   convertCommand,

@@ -33,10 +33,15 @@ export interface ResultRow {
   signal: string;
   /** Recording file (as written in the job). */
   recording: string;
-  /** Segment label; "all" for the whole recording. */
+  /** Task label; "all" for the whole recording. Every segment with this label is joined. */
   segment: string;
+  /** First start and last end of the task's segments, s from the recording start. */
   start_s: number;
   end_s: number;
+  /** Number of segments (occurrences) joined in this row. */
+  segments: number;
+  /** Total length of those segments, s. */
+  segment_s: number;
   /** Time that entered the statistics, s (segment length less excluded time). */
   valid_s: number;
   unit: LoadUnit;
@@ -83,10 +88,29 @@ export interface EnvelopeTrace {
   segments: { label: string; start_s: number; end_s: number }[];
 }
 
+/** How one channel was normalized: the reference and noise levels actually used. */
+export interface ReferenceValue {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  /** Normalization method (mve, rve, task-peak, none). */
+  method: string;
+  /** Reference amplitude after noise correction, µV; null when missing or not used. */
+  reference_uv: number | null;
+  noise_uv: number | null;
+  /** With RVE and a %MVE gap threshold: the worker's MVE, µV. */
+  mve_uv: number | null;
+  spans: { file: string; start_s: number; end_s: number; annotation: string | null }[];
+}
+
 export interface StudyResults {
   format: 'shiftload-results/1';
   tool: { name: 'shiftload'; version: string };
   title: string;
+  /** Reference and noise levels per worker × recording × channel. */
+  references?: ReferenceValue[];
   /** Effective settings, every default filled in. */
   settings: Record<string, unknown>;
   inputs: { file: string; sha256: string; duration_s: number }[];
@@ -158,4 +182,45 @@ export interface Comparison {
   descriptive_only: boolean;
   /** One plain-language sentence that never overclaims. */
   statement: string;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Optional fields read by the report (added by the report helper; all optional, all additive).
+// ---------------------------------------------------------------------------------------------
+
+/** Who/where/when, for the report's title block. Every field optional. */
+export interface StudyInfo {
+  /** Workplace or site name as the study team wants it printed. */
+  site?: string;
+  /** First and last measurement day, ISO dates (YYYY-MM-DD). */
+  start_date?: string;
+  end_date?: string;
+  /** Organisation or team responsible for the measurements (PDF author). */
+  organisation?: string;
+  /** One or two sentences on what was studied. */
+  description?: string;
+  /** Task segment labels in the order the report should list them (otherwise first appearance). */
+  segment_order?: string[];
+}
+
+/** A mean power spectrum of one worker × condition × muscle (for the band-suggestion chart). */
+export interface SpectrumResult {
+  worker: string;
+  condition: string;
+  muscle: string;
+  /** Frequency of each bin, Hz. */
+  freq_hz: number[];
+  /** Power spectral density at each bin, µV²/Hz. */
+  psd: number[];
+  /** The band the analysis suggests for the band-pass filter, Hz. */
+  suggested_band_hz?: [number, number];
+}
+
+export interface StudyResults {
+  /** Study title block (site, dates, organisation). */
+  study?: StudyInfo;
+  /** When the analysis was run, ISO date-time; the report uses it as its creation date. */
+  created?: string;
+  /** Mean spectra per worker × condition × muscle; the report draws them when present. */
+  spectra?: SpectrumResult[];
 }

@@ -1,0 +1,417 @@
+// The report model: plain data (pages → blocks: headings, paragraphs, tables, charts, cautions)
+// built from StudyResults. No drawing here; layoutReport() places it, renderPdf() draws it, and
+// tests read it without pdf-lib. Wording comes from templates/report (loadReportTexts).
+import type { EnvelopeTrace, Finding, ResultRow, StudyResults } from '../study/results.js';
+import { canonicalJson, settingsHash } from './canonical-json.js';
+import { apdfChart } from './charts/apdf-chart.js';
+import type { ChartModel } from './charts/chart-model.js';
+import { evaChart } from './charts/eva-chart.js';
+import { groupBarsChart, type BarGroup } from './charts/group-bars-chart.js';
+import { pairedChart } from './charts/paired-chart.js';
+import { spectrumChart } from './charts/spectrum-chart.js';
+import { timelineChart } from './charts/timeline-chart.js';
+import { fillRequired, fillTemplate, type TemplateVars } from './fill-template.js';
+import { formatHours, formatMinutes, formatNumber } from './format-number.js';
+import { medianRange } from './median-range.js';
+import { readComparisons, type ReportComparison } from './read-comparisons.js';
+import { loadReportTexts, type ReportTexts } from './report-texts.js';
+import { flattenSettings, settingAt } from './setting-at.js';
+
+export interface TableColumn {
+  label: string;
+  /** Share of the content width (the columns' shares are scaled to sum to 1). */
+  width: number;
+  align?: 'left' | 'right';
+}
+
+export type Block =
+  | { type: 'title'; text: string; lines: string[] }
+  | { type: 'heading'; level: 1 | 2 | 3; text: string }
+  | { type: 'paragraph'; text: string; small?: boolean }
+  | { type: 'bullets'; items: string[]; small?: boolean }
+  | { type: 'caution'; title: string; items: string[] }
+  | { type: 'table'; columns: TableColumn[]; rows: string[][]; small?: boolean }
+  | { type: 'charts'; charts: ChartModel[] };
+
+/** A logical page: starts on a new sheet; its blocks flow onto further sheets as needed. */
+export interface ReportPage { id: string; blocks: Block[] }
+
+export interface ReportMeta {
+  title: string;
+  author: string;
+  subject: string;
+  keywords: string[];
+  /** ISO date-time from the results (never the clock); undefined when the results carry none. */
+  creationDate?: string;
+  creator: string;
+}
+
+export interface ReportModel { meta: ReportMeta; pages: ReportPage[] }
+
+const PCT = { static: 'p10', median: 'p50', peak: 'p90' } as const;
+
+/** Distinct values in first-appearance order, with `preferred` (when given) first in its order. */
+function ordered(values: Iterable<string>, preferred: string[] = []): string[] {
+  const seen = new Set<string>();
+  for (const v of values) seen.add(v);
+  const out = preferred.filter((p) => seen.has(p));
+  for (const v of seen) if (!out.includes(v)) out.push(v);
+  return out;
+}
+
+const num = (row: ResultRow, key: string): number | null => {
+  const v = (row as unknown as Record<string, unknown>)[key];
+  return typeof v === 'number' && Number.isFinite(v) ? v : null;
+};
+
+/** Stable id fragment for SVG file names. */
+const slug = (s: string) => s.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'x';
+
+/**
+ * Build the report model from validated results.
+ * @param results a shiftload-results/1 object (validate with assertResults first)
+ * @example const model = buildReportModel(results); model.pages[0].blocks[0] // title block
+ */
+export function buildReportModel(results: StudyResults, texts: ReportTexts = loadReportTexts()): ReportModel {
+  const { t } = texts;
+  const L = t.labels as Record<string, string>;
+  const rows = results.rows;
+  const study = results.study ?? {};
+  const segments = ordered(rows.map((r) => r.segment), study.segment_order).filter((s) => s !== 'all');
+  const conditions = ordered(rows.map((r) => r.condition));
+  const muscles = ordered(rows.map((r) => r.muscle));
+  const workers = ordered(rows.map((r) => r.worker)).sort((a, b) => a.localeCompare(b, 'en', { numeric: true }));
+  const units = ordered(rows.map((r) => r.unit));
+  const unit = units.join(', ');
+  const usedRefs = new Set<string>();
+  const cite = (...keys: string[]) => keys.forEach((k) => usedRefs.add(k));
+  const rowsOf = (muscle: string, segment: string, condition: string) =>
+    rows.filter((r) => r.muscle === muscle && r.segment === segment && r.condition === condition);
+  const gapMin = settingAt(results.settings, ['gaps.min_duration_s', 'gap.min_duration_s', 'rest.gap_min_s']);
+  const gapThreshold = rows.length ? rows[0].gap_threshold : undefined;
+  const sameThreshold = rows.every((r) => r.gap_threshold === gapThreshold && r.unit === rows[0].unit);
+
+  // ---------------------------------------------------------------- page 1: committee summary
+  const p1: Block[] = [];
+  const dates = study.start_date ? (study.end_date && study.end_date !== study.start_date ? `${study.start_date} to ${study.end_date}` : study.start_date) : undefined;
+  const titleLines = [
+    fillTemplate(t.titleBlock.site, { site: study.site }),
+    fillTemplate(t.titleBlock.dates, { dates }),
+    fillTemplate(t.titleBlock.organisation, { organisation: study.organisation }),
+    fillTemplate(t.titleBlock.generated, { created: results.created?.replace('T', ' ').replace(/:\d\d(\.\d+)?Z$/, ' UTC'), version: results.tool.version }),
+    study.description ?? null,
+  ].filter((s): s is string => s !== null);
+  p1.push({ type: 'title', text: results.title, lines: titleLines });
+  p1.push({ type: 'heading', level: 2, text: t.headings.who });
+  const recordedS = recordedSeconds(rows);
+  p1.push({ type: 'paragraph', text: fillRequired(t.who, {
+    nWorkers: workers.length, nConditions: conditions.length, conditions: conditions.join(', '), muscles: muscles.join(', '),
+    hours: formatHours(recordedS), segments: segments.join(', ') || '–',
+  }) });
+  p1.push({ type: 'heading', level: 2, text: t.headings.figures });
+  const intro = fillTemplate(t.figuresIntro, { gapMin: typeof gapMin === 'number' ? formatNumber(gapMin) : undefined, gapThreshold: sameThreshold ? formatNumber(gapThreshold) : undefined, unit: units[0] });
+  if (intro) p1.push({ type: 'paragraph', text: intro, small: true });
+  for (const m of muscles) {
+    const items: string[] = [];
+    for (const s of segments) for (const c of conditions) {
+      const rs = rowsOf(m, s, c);
+      if (!rs.length) continue;
+      const p50 = medianRange(rs.map((r) => num(r, PCT.median)));
+      const gpm = medianRange(rs.map((r) => r.gaps_per_min));
+      const line = fillTemplate(t.figureSentence, {
+        muscle: cap(m), segment: s, condition: c, unit: rs[0].unit,
+        p50: p50 && formatNumber(p50.median), p50min: p50 && formatNumber(p50.min), p50max: p50 && formatNumber(p50.max),
+        gaps: gpm && formatNumber(gpm.median), gapsmin: gpm && formatNumber(gpm.min), gapsmax: gpm && formatNumber(gpm.max),
+        n: rs.length,
+      });
+      if (line) items.push(line);
+    }
+    if (items.length) p1.push({ type: 'bullets', items, small: true });
+  }
+  p1.push({ type: 'heading', level: 2, text: t.headings.context });
+  for (const para of t.context as string[]) p1.push({ type: 'paragraph', text: para, small: true });
+  cite('jonsson1982', 'hansson2010');
+  const nonMve = units.filter((u) => u !== '%MVE');
+  if (nonMve.length) p1.push({ type: 'paragraph', text: fillRequired(t.contextUnitNote, { unit: nonMve.join(', ') }), small: true });
+  p1.push({ type: 'heading', level: 2, text: t.headings.quality });
+  p1.push({ type: 'paragraph', small: true, text: qualitySentence(results, texts, recordedS) });
+  p1.push({ type: 'caution', title: t.headings.cautions, items: texts.cautions });
+
+  // ---------------------------------------------------------------- overview charts + table
+  const pOverview: Block[] = [{ type: 'heading', level: 1, text: t.headings.overview }, { type: 'paragraph', text: t.overviewIntro, small: true }];
+  for (const m of muscles) {
+    const mUnit = rows.find((r) => r.muscle === m)?.unit ?? unit;
+    const levelGroups: BarGroup[] = segments.map((s) => ({ label: s, clusters: (['static', 'median', 'peak'] as const).map((lv) => ({ label: L[lv], values: conditions.map((c) => medianRange(rowsOf(m, s, c).map((r) => num(r, PCT[lv])))) })) }));
+    pOverview.push({ type: 'charts', charts: [groupBarsChart(`levels-${slug(m)}`, levelGroups, conditions, `${L.load} (${mUnit})`, fillRequired(t.captions.levels, { muscle: cap(m), unit: mUnit }), 483, 165)] });
+    const gapGroups: BarGroup[] = segments.map((s) => ({ label: s, clusters: [{ label: '', values: conditions.map((c) => medianRange(rowsOf(m, s, c).map((r) => r.gaps_per_min))) }] }));
+    pOverview.push({ type: 'charts', charts: [groupBarsChart(`gaps-${slug(m)}`, gapGroups, conditions, L.gapsPerMin, fillRequired(t.captions.gapsBars, { muscle: cap(m) }), 483, 130)] });
+  }
+  // table: medians across workers beside the historical values
+  const ctxRows: string[][] = [];
+  for (const m of muscles) for (const s of [...segments, 'all']) for (const c of conditions) {
+    const rs = rowsOf(m, s, c);
+    if (!rs.length) continue;
+    const f = (k: string) => { const v = medianRange(rs.map((r) => num(r, k))); return v ? `${formatNumber(v.median)} (${formatNumber(v.min)}–${formatNumber(v.max)})` : '–'; };
+    ctxRows.push([m, s, c, f('p10'), f('p50'), f('p90'), (() => { const v = medianRange(rs.map((r) => r.gaps_per_min)); return v ? formatNumber(v.median) : '–'; })(), (() => { const v = medianRange(rs.map((r) => r.rest_pct)); return v ? formatNumber(v.median) : '–'; })()]);
+  }
+  if (units.every((u) => u === '%MVE')) ctxRows.push(['Jonsson 1982, work ≥ 1 h (%MVC, from memory)', '', '', '2–5', '10–14', '50–70', '', '']);
+  pOverview.push({ type: 'table', small: true, columns: [
+    { label: L.muscle, width: 1.6 }, { label: L.segment, width: 1.0 }, { label: L.condition, width: 1.1 },
+    { label: `${L.static} (${unit})`, width: 1.0, align: 'right' }, { label: `${L.median} (${unit})`, width: 1.0, align: 'right' },
+    { label: `${L.peak} (${unit})`, width: 1.0, align: 'right' }, { label: L.gapsPerMin, width: 0.6, align: 'right' }, { label: L.rest, width: 0.55, align: 'right' },
+  ], rows: ctxRows });
+
+  // ---------------------------------------------------------------- EVA
+  const pEva: Block[] = [];
+  if (results.eva.length) {
+    pEva.push({ type: 'heading', level: 1, text: t.headings.eva }, { type: 'paragraph', text: t.evaIntro, small: true });
+    cite('mathiassen1991');
+    const charts: ChartModel[] = [];
+    for (const m of muscles) for (const c of conditions) {
+      const ms = results.eva.filter((e) => e.muscle === m && e.condition === c && e.segment === 'all');
+      if (!ms.length) continue;
+      const e0 = ms[0];
+      const pooled = e0.percent_time.map((row, a) => row.map((_, d) => medianRange(ms.map((e) => e.percent_time[a]?.[d]))?.median ?? 0));
+      charts.push(evaChart(`eva-${slug(m)}-${slug(c)}`, pooled, e0.amplitude_edges, e0.duration_edges_s, e0.unit,
+        fillRequired(t.captions.eva, { muscle: cap(m), segment: 'whole recording', condition: c }), { amplitude: L.amplitudeClass, duration: L.durationClass }));
+    }
+    for (let i = 0; i < charts.length; i += 2) pEva.push({ type: 'charts', charts: charts.slice(i, i + 2) });
+  }
+
+  // ---------------------------------------------------------------- comparisons (optional)
+  const comparisons = readComparisons(results);
+  const pCmp: Block[] = comparisons.length ? comparisonBlocks(comparisons, texts) : [];
+
+  // ---------------------------------------------------------------- spectra (optional)
+  const pSpec: Block[] = [];
+  if (results.spectra?.length) {
+    pSpec.push({ type: 'heading', level: 1, text: t.headings.spectra });
+    const charts = results.spectra.map((s, i) => spectrumChart(`spectrum-${i + 1}-${slug(s.worker)}-${slug(s.condition)}-${slug(s.muscle)}`, s,
+      fillRequired(t.captions.spectrum, { muscle: s.muscle, worker: s.worker, condition: s.condition, band: s.suggested_band_hz ? `${formatNumber(s.suggested_band_hz[0], 0)}–${formatNumber(s.suggested_band_hz[1], 0)} Hz` : L.none }),
+      { frequency: L.frequency, psd: L.psd }));
+    for (let i = 0; i < charts.length; i += 2) pSpec.push({ type: 'charts', charts: charts.slice(i, i + 2) });
+  }
+
+  // ---------------------------------------------------------------- per-worker pages
+  const workerPages: ReportPage[] = workers.map((w) => workerPage(w, results, texts, { segments, conditions, muscles }));
+
+  // ---------------------------------------------------------------- methods, accounting, references, reproducibility
+  const pMethods = methodsBlocks(results, texts, cite);
+  const pAccount = accountingBlocks(results, texts, workers, conditions, muscles);
+  const pRefs: Block[] = [{ type: 'heading', level: 1, text: t.headings.references }, { type: 'bullets', small: true,
+    items: [...texts.references.entries()].filter(([k]) => usedRefs.has(k)).map(([, v]) => v) }];
+  const pRepro = reproBlocks(results, texts);
+
+  const pages: ReportPage[] = [
+    { id: 'summary', blocks: p1 },
+    { id: 'overview', blocks: pOverview },
+    ...(pEva.length ? [{ id: 'eva', blocks: pEva }] : []),
+    ...(pCmp.length ? [{ id: 'comparisons', blocks: pCmp }] : []),
+    ...workerPages,
+    ...(pSpec.length ? [{ id: 'spectra', blocks: pSpec }] : []),
+    { id: 'methods', blocks: pMethods },
+    { id: 'accounting', blocks: pAccount },
+    { id: 'references', blocks: [...pRefs, ...pRepro] },
+  ];
+  return {
+    meta: {
+      title: results.title,
+      author: study.organisation ?? 'shiftload',
+      subject: `Surface-EMG exposure report: ${workers.length} workers, ${conditions.join(' / ')}, ${muscles.join(', ')}`,
+      keywords: ['surface EMG', 'exposure', 'APDF', 'EMG gaps', ...conditions, ...muscles],
+      creationDate: results.created,
+      creator: `shiftload ${results.tool.version}`,
+    },
+    pages,
+  };
+}
+
+function cap(s: string): string { return s ? s[0].toUpperCase() + s.slice(1) : s; }
+
+/** Recorded time: each recording counted once (its "all" row, or the longest row), seconds. */
+function recordedSeconds(rows: ResultRow[]): number {
+  const per = new Map<string, number>();
+  for (const r of rows) {
+    const key = `${r.worker}\u0000${r.condition}\u0000${r.recording}`;
+    const d = r.segment === 'all' ? r.end_s - r.start_s : 0;
+    per.set(key, Math.max(per.get(key) ?? 0, d));
+  }
+  let s = 0;
+  for (const v of per.values()) s += v;
+  return s;
+}
+
+function qualitySentence(results: StudyResults, texts: ReportTexts, recordedS: number): string {
+  const f = results.findings;
+  if (!f.length) return texts.t.qualityNone;
+  // excluded time: per recording×signal from the "all" rows, averaged over channels of a recording
+  let total = 0, excluded = 0;
+  for (const r of results.rows) if (r.segment === 'all') { total += r.end_s - r.start_s; excluded += Math.max(0, r.end_s - r.start_s - r.valid_s); }
+  void recordedS;
+  return fillRequired(texts.t.qualitySummary, {
+    nFindings: f.length, nWarnings: f.filter((x) => x.severity === 'warning').length, nErrors: f.filter((x) => x.severity === 'error').length,
+    excluded: `${formatMinutes(excluded)} min`, total: `${formatHours(total)} h (channel time)`,
+  });
+}
+
+function workerPage(w: string, results: StudyResults, texts: ReportTexts, o: { segments: string[]; conditions: string[]; muscles: string[] }): ReportPage {
+  const { t } = texts;
+  const L = t.labels as Record<string, string>;
+  const blocks: Block[] = [{ type: 'heading', level: 1, text: fillRequired(t.headings.worker, { worker: w }) }, { type: 'paragraph', text: t.workerIntro, small: true }];
+  const segs = [...o.segments, 'all'];
+  const wr = results.rows.filter((r) => r.worker === w).sort((a, b) =>
+    o.conditions.indexOf(a.condition) - o.conditions.indexOf(b.condition) || o.muscles.indexOf(a.muscle) - o.muscles.indexOf(b.muscle) || segs.indexOf(a.segment) - segs.indexOf(b.segment));
+  blocks.push({ type: 'table', small: true, columns: [
+    { label: L.condition, width: 1.15 }, { label: L.muscle, width: 1.45 }, { label: L.segment, width: 0.95 }, { label: L.valid, width: 0.6, align: 'right' },
+    { label: L.static, width: 0.55, align: 'right' }, { label: L.median, width: 0.55, align: 'right' }, { label: L.peak, width: 0.55, align: 'right' },
+    { label: L.gapsPerMin, width: 0.6, align: 'right' }, { label: L.rest, width: 0.5, align: 'right' }, { label: L.longest, width: 0.8, align: 'right' },
+    { label: L.sustained, width: 0.65, align: 'right' }, { label: L.threshold, width: 0.75, align: 'right' },
+  ], rows: wr.map((r) => [r.condition, r.muscle, r.segment, formatMinutes(r.valid_s), formatNumber(num(r, 'p10')), formatNumber(num(r, 'p50')), formatNumber(num(r, 'p90')),
+    formatNumber(r.gaps_per_min), formatNumber(r.rest_pct), formatNumber(r.longest_without_gap_s, 0), formatNumber(r.sustained_pct), `${formatNumber(r.gap_threshold)} ${r.unit}`]) });
+  const traces = results.traces.filter((x) => x.worker === w).sort((a, b) => o.conditions.indexOf(a.condition) - o.conditions.indexOf(b.condition) || o.muscles.indexOf(a.muscle) - o.muscles.indexOf(b.muscle));
+  for (const tr of traces) blocks.push({ type: 'charts', charts: [traceChart(tr, texts, o.segments)] });
+  const apdfCharts: ChartModel[] = [];
+  for (const c of o.conditions) for (const m of o.muscles) {
+    const curves = o.segments.map((s) => results.apdf.find((a) => a.worker === w && a.condition === c && a.muscle === m && a.segment === s)).filter((a) => a !== undefined);
+    if (!curves.length) continue;
+    apdfCharts.push(apdfChart(`apdf-${slug(w)}-${slug(c)}-${slug(m)}`, curves.map((a) => ({ segment: a.segment, levels: a.levels })), curves[0].unit,
+      fillRequired(t.captions.apdf, { muscle: m, worker: w, condition: c }),
+      { load: L.load, probability: L.probability, static: `${L.static} 10 %`, median: `${L.median} 50 %`, peak: `${L.peak} 90 %` }, o.segments));
+  }
+  for (let i = 0; i < apdfCharts.length; i += 2) blocks.push({ type: 'charts', charts: apdfCharts.slice(i, i + 2) });
+  return { id: `worker-${slug(w)}`, blocks };
+}
+
+function traceChart(tr: EnvelopeTrace, texts: ReportTexts, segments: string[]): ChartModel {
+  const { t } = texts;
+  const L = t.labels as Record<string, string>;
+  const step = formatNumber(tr.step_s);
+  return timelineChart(`timeline-${slug(tr.worker)}-${slug(tr.condition)}-${slug(tr.muscle)}`, tr,
+    fillRequired(t.captions.timeline, { muscle: tr.muscle, worker: tr.worker, condition: tr.condition, step, unit: tr.unit }),
+    { time: L.time, load: L.load, mean: `${step} s mean`, max: `${step} s maximum` }, segments);
+}
+
+function comparisonBlocks(cmp: ReportComparison[], texts: ReportTexts): Block[] {
+  const { t } = texts;
+  const L = t.labels as Record<string, string>;
+  const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.comparisons }, { type: 'paragraph', text: t.comparisonsIntro, small: true }];
+  blocks.push({ type: 'table', small: true, columns: [
+    { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.9 }, { label: L.measure, width: 0.9 }, { label: `${L.condition} A → B`, width: 1.6 },
+    { label: L.n, width: 0.3, align: 'right' }, { label: L.difference, width: 0.9, align: 'right' }, { label: L.ci, width: 1.0, align: 'right' }, { label: L.pValue, width: 0.5, align: 'right' },
+  ], rows: cmp.map((c) => [c.muscle, c.segment, c.measure, `${c.condition_a} → ${c.condition_b}`, String(c.n), `${formatNumber(c.median_difference)} ${c.unit}`,
+    c.descriptive_only || c.ci_low === null || c.ci_high === null ? '–' : `${formatNumber(c.ci_low)} to ${formatNumber(c.ci_high)}`, c.p_value === null ? '–' : formatP(c.p_value)]) });
+  const charts: ChartModel[] = [];
+  cmp.forEach((c, i) => {
+    if (!c.per_worker.length) return;
+    charts.push(pairedChart(`paired-${i + 1}-${slug(c.muscle)}-${slug(c.segment)}-${slug(c.measure)}`, c.per_worker, c.condition_a, c.condition_b, `${c.measure} (${c.unit})`,
+      fillRequired(t.captions.paired, { measure: cap(c.measure), muscle: c.muscle, segment: c.segment, unit: c.unit, a: c.condition_a, b: c.condition_b }) + ' ' + c.statement +
+      (c.descriptive_only ? ' ' + t.comparisonDescriptive : '')));
+  });
+  for (let i = 0; i < charts.length; i += 3) blocks.push({ type: 'charts', charts: charts.slice(i, i + 3) });
+  return blocks;
+}
+
+function formatP(p: number): string { return p < 0.001 ? '< 0.001' : formatNumber(p, p < 0.01 ? 3 : 2); }
+
+function methodsBlocks(results: StudyResults, texts: ReportTexts, cite: (...k: string[]) => void): Block[] {
+  const { t } = texts;
+  const M = t.methods as Record<string, string>;
+  const s = results.settings;
+  const L = t.labels as Record<string, string>;
+  const get = (...paths: string[]) => settingAt(s, paths);
+  const fmt = (v: unknown) => (typeof v === 'number' ? formatNumber(v, Number.isInteger(v) ? 0 : undefined) : typeof v === 'string' ? v : typeof v === 'boolean' ? String(v) : undefined);
+  const band = get('filter.band_hz', 'bandpass.band_hz') as number[] | undefined;
+  const zero = get('filter.zero_phase', 'bandpass.zero_phase');
+  const notch = get('filter.notch_hz', 'notch.freq_hz', 'notch_hz');
+  const noiseOn = get('noise_correction.enabled', 'noise.enabled', 'noise_correction');
+  const normMethod = String(get('normalization.method', 'normalize.method', 'reference.method') ?? results.rows[0]?.unit ?? '').toLowerCase();
+  const normText = /mve|mvc/.test(normMethod) ? M.normMve : /rve/.test(normMethod) ? M.normRve : /peak/.test(normMethod) ? M.normTaskPeak : /none|uv/.test(normMethod) ? M.normNone : undefined;
+  const vars: TemplateVars = {
+    filterType: fmt(get('filter.type', 'bandpass.type')) ?? L.notRecorded,
+    order: fmt(get('filter.order', 'bandpass.order')) ?? L.notRecorded,
+    highpass: fmt(get('filter.highpass_hz', 'bandpass.low_hz') ?? band?.[0]) ?? L.notRecorded,
+    lowpass: fmt(get('filter.lowpass_hz', 'bandpass.high_hz') ?? band?.[1]) ?? L.notRecorded,
+    zeroPhase: zero === true ? M.zeroPhaseYes : zero === false ? M.zeroPhaseNo : L.notRecorded,
+    window: fmt(get('envelope.window_s', 'rms.window_s')) ?? L.notRecorded,
+    rate: fmt(get('envelope.rate_hz', 'rms.rate_hz')) ?? L.notRecorded,
+    notch: typeof notch === 'number' ? fillTemplate(M.notch, { notch: fmt(notch) }) ?? '' : '',
+    noise: noiseOn === false ? M.noiseOff : fillTemplate(M.noise, { noiseSource: describeNoiseSource(get('noise_correction.source', 'noise.source')), noiseWindow: fmt(get('noise_correction.window_s', 'noise.window_s')) ?? L.notRecorded }) ?? M.noiseOff,
+    normalization: normText ? (fillTemplate(normText, { refWindow: fmt(get('normalization.reference_window_s', 'normalize.window_s')) ?? L.notRecorded }) ?? L.notRecorded) : L.notRecorded,
+  };
+  const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.methods }];
+  blocks.push({ type: 'paragraph', text: fillRequired(M.pipeline, vars) + ' ' + M.sameChain });
+  if (noiseOn !== false) cite('rds2019');
+  cite('mathiassen1995');
+  const pcts = (get('percentiles', 'apdf.percentiles') as number[] | undefined) ?? [10, 50, 90];
+  blocks.push({ type: 'paragraph', text: fillRequired(M.percentiles, { percentiles: pcts.map((p) => `${formatNumber(p, 0)}th`).join(', ') + ' (static, median and peak load for 10th, 50th, 90th)' }) });
+  cite('hyndman1996');
+  const gapUnit = String(get('gaps.threshold_unit', 'gap.threshold_unit') ?? results.rows[0]?.unit ?? '');
+  const gapText = fillTemplate(M.gaps, { gapThreshold: fmt(get('gaps.threshold', 'gap.threshold') ?? results.rows[0]?.gap_threshold), gapUnit, gapMin: fmt(get('gaps.min_duration_s', 'gap.min_duration_s')) });
+  if (gapText) { blocks.push({ type: 'paragraph', text: gapText }); cite('veiersted1990', 'hansson2000'); }
+  const sus = fillTemplate(M.sustained, { sustainedThreshold: fmt(get('sustained.threshold')), gapUnit, sustainedMin: fmt(get('sustained.min_duration_s')) });
+  if (sus) blocks.push({ type: 'paragraph', text: sus });
+  const ampEdges = (get('eva.amplitude_edges') as number[] | undefined) ?? results.eva[0]?.amplitude_edges;
+  const durEdges = (get('eva.duration_edges_s') as number[] | undefined) ?? results.eva[0]?.duration_edges_s;
+  if (ampEdges && durEdges) blocks.push({ type: 'paragraph', text: fillRequired(M.eva, { ampEdges: ampEdges.map((x) => formatNumber(x, x % 1 ? 1 : 0)).join(', '), durEdges: durEdges.map((x) => formatNumber(x, x % 1 ? 1 : 0)).join(', '), unit: results.eva[0]?.unit ?? gapUnit }) });
+  blocks.push({ type: 'paragraph', text: fillRequired(M.unit, { units: ordered(results.rows.map((r) => r.unit)).join(', ') || L.none }) });
+  blocks.push({ type: 'caution', title: t.headings.cautions, items: [M.mvcSafety, ...texts.cautions.slice(0, 3)] });
+  blocks.push({ type: 'heading', level: 2, text: t.headings.settings });
+  blocks.push({ type: 'table', small: true, columns: [{ label: L.setting, width: 1 }, { label: L.value, width: 2 }], rows: flattenSettings(s) });
+  return blocks;
+}
+
+function describeNoiseSource(v: unknown): string | undefined {
+  if (typeof v !== 'string') return undefined;
+  if (/rest/.test(v)) return 'the rest recording (lowest moving RMS)';
+  if (/min/.test(v)) return 'the lowest moving RMS of the field recording';
+  return v;
+}
+
+function accountingBlocks(results: StudyResults, texts: ReportTexts, workers: string[], conditions: string[], muscles: string[]): Block[] {
+  const { t } = texts;
+  const L = t.labels as Record<string, string>;
+  const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.accounting }, { type: 'paragraph', text: t.accountingIntro, small: true }];
+  const all = results.rows.filter((r) => r.segment === 'all').sort((a, b) =>
+    workers.indexOf(a.worker) - workers.indexOf(b.worker) || conditions.indexOf(a.condition) - conditions.indexOf(b.condition) || muscles.indexOf(a.muscle) - muscles.indexOf(b.muscle));
+  const why = (r: ResultRow) => {
+    const codes = results.findings.filter((f) => matches(f, r)).map((f) => f.code);
+    return codes.length ? [...new Set(codes)].join(', ') : '';
+  };
+  blocks.push({ type: 'table', small: true, columns: [
+    { label: L.worker, width: 0.6 }, { label: L.condition, width: 1.1 }, { label: L.muscle, width: 1.5 }, { label: L.recorded, width: 0.8, align: 'right' },
+    { label: L.valid, width: 0.7, align: 'right' }, { label: L.excluded, width: 0.8, align: 'right' }, { label: L.why, width: 1.3 },
+  ], rows: all.map((r) => [r.worker, r.condition, r.muscle, formatMinutes(r.end_s - r.start_s), formatMinutes(r.valid_s), formatMinutes(Math.max(0, r.end_s - r.start_s - r.valid_s)), why(r)]) });
+  blocks.push({ type: 'heading', level: 2, text: t.headings.findings });
+  if (!results.findings.length) blocks.push({ type: 'paragraph', text: t.qualityNone });
+  else blocks.push({ type: 'table', small: true, columns: [{ label: L.severity, width: 0.6 }, { label: L.where, width: 1.6 }, { label: L.message, width: 3 }],
+    rows: results.findings.map((f) => [f.severity, whereText(f), `${f.code}: ${f.message}`]) });
+  return blocks;
+}
+
+function matches(f: Finding, r: ResultRow): boolean {
+  const w = f.where;
+  return (w.worker === undefined || w.worker === r.worker) && (w.recording === undefined || w.recording === r.recording) && (w.signal === undefined || w.signal === r.signal);
+}
+
+function whereText(f: Finding): string {
+  const w = f.where;
+  const parts = [w.worker, w.recording, w.signal, w.segment].filter(Boolean) as string[];
+  if (w.start_s !== undefined && w.end_s !== undefined) parts.push(`${formatNumber(w.start_s, 0)}–${formatNumber(w.end_s, 0)} s`);
+  return parts.join(' · ') || '–';
+}
+
+function reproBlocks(results: StudyResults, texts: ReportTexts): Block[] {
+  const { t } = texts;
+  const L = t.labels as Record<string, string>;
+  return [
+    { type: 'heading', level: 1, text: t.headings.reproducibility },
+    { type: 'paragraph', text: t.reproIntro, small: true },
+    { type: 'table', small: true, columns: [{ label: L.setting, width: 1 }, { label: L.value, width: 4 }], rows: [
+      [L.tool, `${results.tool.name} ${results.tool.version}`],
+      [L.settingsHash, settingsHash(results.settings)],
+      ['settings bytes', String(canonicalJson(results.settings).length)],
+    ] },
+    { type: 'table', small: true, columns: [{ label: L.file, width: 1.6 }, { label: L.duration, width: 0.6, align: 'right' }, { label: L.sha256, width: 3.2 }],
+      rows: results.inputs.map((i) => [i.file, formatHours(i.duration_s), i.sha256]) },
+  ];
+}
