@@ -100,7 +100,7 @@ export function parseSimulationSpec(text: string, file: string): SimulationSpec 
   for (const [name, v] of Object.entries(variantsObj)) {
     const o = r.obj(v, `variants.${name}`);
     variants[name] = {
-      duration_s: r.num(o, 'duration_s', `variants.${name}`, 10, 7 * 86400),
+      duration_s: r.int(o, 'duration_s', `variants.${name}`, 10, 7 * 86400), // whole seconds: whole EDF records
       cycle_scale: r.num(o, 'cycle_scale', `variants.${name}`, 0.01, 1000, SIM_DEFAULTS.variant.cycle_scale),
     };
   }
@@ -174,7 +174,7 @@ export function parseSimulationSpec(text: string, file: string): SimulationSpec 
     output_format: fmt,
     muscles,
     reference,
-    rest_duration_s: r.num(doc, 'rest_duration_s', '', 1, 3600, SIM_DEFAULTS.rest_duration_s),
+    rest_duration_s: r.int(doc, 'rest_duration_s', '', 1, 3600, SIM_DEFAULTS.rest_duration_s),
     conditions,
     variants,
     workers,
