@@ -49,6 +49,13 @@ export const ioMsg = {
     `${file}: annotation in data record ${record + 1} (byte ${offset}): ${what}`,
   noTimekeeping: (file: string, record: number, offset: number) =>
     `${file}: data record ${record + 1} (byte ${offset}) has no time-keeping annotation (EDF+ requires one per record)`,
+  notContinuous: (file: string, record: number, offset: number, t: number, expected: number) =>
+    `${file}: data record ${record + 1} (byte ${offset}) starts at ${t} s by its time-keeping annotation, expected ${expected} s in a continuous (EDF+C/BDF+C) file`,
+  writerDigital: (label: string, lo: number, hi: number, min: number, max: number) =>
+    `EDF writer: signal '${label}': digital range ${lo}..${hi} must lie within ${min}..${max} with minimum below maximum`,
+  writerStart: (start: string) => `EDF writer: start '${start}' must be YYYY-MM-DDTHH:MM:SS`,
+  writerSubsecond: (x: number) => `EDF writer: start_subsecond_s must be in [0, 1), got ${x}`,
+  writerNoSignals: () => 'EDF writer: at least one signal is needed',
   unknownSignal: (file: string, index: number, count: number) => `${file}: no signal with index ${index} (file has ${count})`,
   // CSV / TSV
   csvNoHeader: (file: string) => `${file}:1: expected a header row with channel names`,

@@ -6,6 +6,7 @@ import { inspectCommand } from './inspect.js';
 import { versionInfoCommand } from './version-info.js';
 import { analyzeCommand } from './analyze.js';
 import { checkCommand } from './check.js';
+import { demoCommand } from './demo.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
 import { simulateCommand } from './simulate.js';
@@ -16,6 +17,7 @@ export const commands: CommandModule<any, any>[] = [
   initCommand,
   checkCommand,
   analyzeCommand,
+  demoCommand,
   schemaCommand,
   inspectCommand,
   convertCommand,

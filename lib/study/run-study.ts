@@ -70,6 +70,9 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) total += sp.end_s - sp.start_s;
   }
   let done = 0;
+  // CSV recordings without a time column carry their rate in the job.
+  const openOptions = (rate_hz: number | null): OpenOptions | undefined =>
+    rate_hz === null ? options.open : { ...options.open, rate_hz };
   const progress = (d: number, note: string) => options.onProgress?.(Math.min(total, d), total, note);
 
   // Reference and rest values are cached per span and signal: a worker-level reference serves
@@ -82,7 +85,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     const from = Math.max(0, span.start_s - SPAN_MARGIN_S);
     const res = await readEnvelopes({
       file: span.file, signals: [signal], start_s: from, end_s: span.end_s + SPAN_MARGIN_S, filter,
-      envelope: { window_s, rate_hz: rateHz }, open: options.open,
+      envelope: { window_s, rate_hz: rateHz }, open: openOptions(span.rate_hz),
     });
     // Keep only windows lying wholly inside the span (centre within half a window of its ends).
     const env = res.channels[0]!.envelope;
@@ -141,7 +144,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
         file: rec.file, signals: rec.channels.map((ch) => ch.signalIndex), start_s: 0, end_s: null, filter,
         envelope: { window_s: s.rms_window_s, rate_hz: rate },
         second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
-        open: options.open,
+        open: openOptions(rec.rate_hz),
         onProgress: (d) => progress(base + d, rec.fileAsWritten),
       });
       done = base + rec.duration_s;
@@ -204,15 +207,14 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
         }
       }
 
-      const segs = [...rec.segments.map((sg) => ({ label: sg.label, start_s: sg.start_s, end_s: sg.end_s })),
-        { label: 'all', start_s: 0, end_s: rec.duration_s }];
+      // One row per task label: every occurrence of the label is joined, with a NaN between
+      // occurrences so that no gap, run or EVA period spans two of them.
+      const tasks = groupSegments(rec.segments, rec.duration_s);
       let maxP90 = -Infinity;
-      for (const sg of segs) {
-        const i0 = Math.max(0, Math.ceil(sg.start_s * rate - 1e-9));
-        const i1 = Math.min(env.length, Math.ceil(sg.end_s * rate - 1e-9));
-        const slice = env.subarray(i0, Math.max(i0, i1));
-        if (sg.end_s - sg.start_s < s.rms_window_s) {
-          findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.end_s - sg.start_s, s.rms_window_s) });
+      for (const sg of tasks) {
+        const slice = joinSlices(env, rate, sg.spans);
+        if (sg.shortest_s < s.rms_window_s) {
+          findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.shortest_s, s.rms_window_s) });
         }
         const m = Number.isFinite(threshold)
           ? segmentMeasures(slice, {
@@ -224,7 +226,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
         const valid_s = m ? m.valid_s : 0;
         const row = {
           worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
-          segment: sg.label, start_s: sg.start_s, end_s: sg.end_s, valid_s, unit,
+          segment: sg.label, start_s: sg.start_s, end_s: sg.end_s, segments: sg.spans.length, segment_s: sg.total_s, valid_s, unit,
           reference_uv: lv.reference_uv, noise_uv: lv.noise_uv,
           ...levelsOf,
           gap_threshold: threshold,
@@ -235,9 +237,9 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           sustained_pct: m ? m.sustained_pct : null,
         } as ResultRow;
         rows.push(row);
-        const excluded = sg.end_s - sg.start_s - valid_s;
-        if (m && excluded > Math.max(1 / rate, 0.01 * (sg.end_s - sg.start_s))) {
-          findings.push({ severity: 'info', code: 'excluded-time', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.excludedTime(sg.label, excluded, sg.end_s - sg.start_s) });
+        const excluded = sg.total_s - valid_s;
+        if (m && excluded > Math.max(sg.spans.length / rate, 0.01 * sg.total_s)) {
+          findings.push({ severity: 'info', code: 'excluded-time', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.excludedTime(sg.label, excluded, sg.total_s) });
         }
         const p90 = (row as unknown as Record<string, number | null>)[`p${Math.max(...s.percentiles)}`];
         if (typeof p90 === 'number' && p90 > maxP90) maxP90 = p90;
@@ -281,14 +283,14 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   }
 
   // Every input file with its fingerprint.
-  const files = new Map<string, string>();
+  const files = new Map<string, { shown: string; rate_hz: number | null }>();
   for (const w of study.workers) for (const r of w.recordings) {
-    files.set(r.file, r.fileAsWritten);
-    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, sp.fileAsWritten);
+    files.set(r.file, { shown: r.fileAsWritten, rate_hz: r.rate_hz });
+    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, { shown: sp.fileAsWritten, rate_hz: sp.rate_hz });
   }
   const inputs: StudyResults['inputs'] = [];
-  for (const [abs, shown] of files) {
-    const rec = await openRecording(abs);
+  for (const [abs, { shown, rate_hz }] of files) {
+    const rec = await openRecording(abs, openOptions(rate_hz));
     const duration_s = rec.info.duration_s;
     await rec.close();
     inputs.push({ file: shown, sha256: await sha256File(abs), duration_s });
@@ -328,4 +330,55 @@ function studyInfo(study: Study): NonNullable<StudyResults['study']> {
   for (const w of study.workers) for (const r of w.recordings) for (const sg of r.segments) if (!order.includes(sg.label)) order.push(sg.label);
   info.segment_order = order;
   return info;
+}
+
+/** A task: every segment with one label, in time order. */
+interface TaskSpans {
+  label: string;
+  spans: { start_s: number; end_s: number }[];
+  start_s: number;
+  end_s: number;
+  total_s: number;
+  shortest_s: number;
+}
+
+/** Group segments by label (first appearance order), then add the whole recording as 'all'. */
+export function groupSegments(segments: readonly { label: string; start_s: number; end_s: number }[], duration_s: number): TaskSpans[] {
+  const byLabel = new Map<string, TaskSpans>();
+  for (const sg of segments) {
+    let t = byLabel.get(sg.label);
+    if (!t) { t = { label: sg.label, spans: [], start_s: sg.start_s, end_s: sg.end_s, total_s: 0, shortest_s: Infinity }; byLabel.set(sg.label, t); }
+    t.spans.push({ start_s: sg.start_s, end_s: sg.end_s });
+    t.start_s = Math.min(t.start_s, sg.start_s);
+    t.end_s = Math.max(t.end_s, sg.end_s);
+    t.total_s += sg.end_s - sg.start_s;
+    t.shortest_s = Math.min(t.shortest_s, sg.end_s - sg.start_s);
+  }
+  const tasks = [...byLabel.values()];
+  tasks.push({ label: 'all', spans: [{ start_s: 0, end_s: duration_s }], start_s: 0, end_s: duration_s, total_s: duration_s, shortest_s: duration_s });
+  return tasks;
+}
+
+/**
+ * The envelope samples of several spans joined into one array, one NaN between spans (NaN is
+ * excluded time: it breaks gaps, runs and EVA periods, and adds no valid time). Envelope sample k
+ * lies at k / rate s; a span [a, b) takes the samples with a ≤ k / rate < b.
+ */
+export function joinSlices(env: Float64Array, rate: number, spans: readonly { start_s: number; end_s: number }[]): Float64Array {
+  const bounds = spans.map((sp) => {
+    const i0 = Math.min(env.length, Math.max(0, Math.ceil(sp.start_s * rate - 1e-9)));
+    const i1 = Math.min(env.length, Math.max(i0, Math.ceil(sp.end_s * rate - 1e-9)));
+    return [i0, i1] as const;
+  });
+  if (bounds.length === 1) return env.subarray(bounds[0]![0], bounds[0]![1]);
+  let n = bounds.length - 1;
+  for (const [a, b] of bounds) n += b - a;
+  const out = new Float64Array(n);
+  let o = 0;
+  bounds.forEach(([a, b], i) => {
+    if (i > 0) out[o++] = NaN;
+    out.set(env.subarray(a, b), o);
+    o += b - a;
+  });
+  return out;
 }
