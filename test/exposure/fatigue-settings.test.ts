@@ -1,0 +1,31 @@
+import { describe, expect, it } from 'vitest';
+import { FATIGUE_DEFAULTS, resolveFatigueSettings } from '../../lib/exposure/fatigue-settings.js';
+import { fatigueTaps } from '../../lib/exposure/fatigue-taps.js';
+import { fatigueMethod } from '../../lib/exposure/fatigue-method.js';
+import { DEFAULTS } from '../../lib/job/defaults.js';
+
+describe('resolveFatigueSettings(partial)', () => {
+  it('resolveFatigueSettings fills missing keys from FATIGUE_DEFAULTS (a partial or null block is fine)', () => {
+    expect(resolveFatigueSettings(null)).toEqual(FATIGUE_DEFAULTS);
+    expect(resolveFatigueSettings({ block_s: 300 })).toEqual({ ...FATIGUE_DEFAULTS, block_s: 300 });
+    expect(DEFAULTS.fatigue).toEqual(FATIGUE_DEFAULTS);
+  });
+});
+
+describe('fatigueTaps(channels, settings, filterBand)', () => {
+  it('fatigueTaps gives one tap per channel with the filter band, cut to fs/2, and null when disabled', () => {
+    const taps = fatigueTaps([{ rate_hz: 1000 }, { rate_hz: 2048 }, { rate_hz: 600 }], resolveFatigueSettings({}), [30, 400])!;
+    expect(taps.map((t) => [t.fs, t.n, t.nfft, t.band_hz])).toEqual([[1000, 1000, 1024, [30, 400]], [2048, 2048, 2048, [30, 400]], [600, 600, 1024, [30, 300]]]);
+    expect(fatigueTaps([{ rate_hz: 1000 }], resolveFatigueSettings({ band_hz: [20, 250] }), [30, 400])![0]!.band_hz).toEqual([20, 250]);
+    expect(fatigueTaps([{ rate_hz: 1000 }], resolveFatigueSettings({ enabled: false }), [30, 400])).toBeNull();
+  });
+});
+
+describe('fatigueMethod(settings, filterBand, rates)', () => {
+  it('fatigueMethod names the FFT length per rate, the band and the care sentence', () => {
+    const m = fatigueMethod(resolveFatigueSettings({}), [30, 400], [2000, 1000, 1000]);
+    expect(m.band_hz).toEqual([30, 400]);
+    expect(m.description).toContain('1024-point at 1000 Hz, 2048-point at 2000 Hz');
+    expect(m.description).toContain('not an individual');
+  });
+});
