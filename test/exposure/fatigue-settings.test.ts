@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { FATIGUE_DEFAULTS, resolveFatigueSettings } from '../../lib/exposure/fatigue-settings.js';
-import { fatigueTaps } from '../../lib/exposure/fatigue-taps.js';
+import { fatigueTapSpec, fatigueTaps, spectralEpochBuffers } from '../../lib/exposure/fatigue-taps.js';
 import { fatigueMethod } from '../../lib/exposure/fatigue-method.js';
 import { DEFAULTS } from '../../lib/job/defaults.js';
 
@@ -12,12 +12,22 @@ describe('resolveFatigueSettings(partial)', () => {
   });
 });
 
-describe('fatigueTaps(channels, settings, filterBand)', () => {
+describe('fatigueTaps(fatigueTapSpec(channels, settings, filterBand))', () => {
   it('fatigueTaps gives one tap per channel with the filter band, cut to fs/2, and null when disabled', () => {
-    const taps = fatigueTaps([{ rate_hz: 1000 }, { rate_hz: 2048 }, { rate_hz: 600 }], resolveFatigueSettings({}), [30, 400])!;
+    const spec = fatigueTapSpec([{ rate_hz: 1000 }, { rate_hz: 2048 }, { rate_hz: 600 }], resolveFatigueSettings({}), [30, 400]);
+    expect(structuredClone(spec)).toEqual(spec); // plain data for a worker thread
+    const taps = fatigueTaps(spec)!;
     expect(taps.map((t) => [t.fs, t.n, t.nfft, t.band_hz])).toEqual([[1000, 1000, 1024, [30, 400]], [2048, 2048, 2048, [30, 400]], [600, 600, 1024, [30, 300]]]);
-    expect(fatigueTaps([{ rate_hz: 1000 }], resolveFatigueSettings({ band_hz: [20, 250] }), [30, 400])![0]!.band_hz).toEqual([20, 250]);
-    expect(fatigueTaps([{ rate_hz: 1000 }], resolveFatigueSettings({ enabled: false }), [30, 400])).toBeNull();
+    expect(fatigueTaps(fatigueTapSpec([{ rate_hz: 1000 }], resolveFatigueSettings({ band_hz: [20, 250] }), [30, 400]))![0]!.band_hz).toEqual([20, 250]);
+    expect(fatigueTapSpec([{ rate_hz: 1000 }], resolveFatigueSettings({ enabled: false }), [30, 400])).toBeNull();
+    expect(fatigueTaps(null)).toBeNull();
+  });
+  it('spectralEpochBuffers lists the four distinct buffers of each series', () => {
+    const t = fatigueTaps({ rates_hz: [1000], epoch_s: 1, band_hz: [30, 400] })![0]!;
+    t.filtered(new Float64Array(3000).fill(1));
+    const bufs = spectralEpochBuffers([t.result()]);
+    expect(bufs.length).toBe(4);
+    expect(new Set(bufs).size).toBe(4);
   });
 });
 
