@@ -3,6 +3,8 @@ import { FATIGUE_DEFAULTS, resolveFatigueSettings } from '../../lib/exposure/fat
 import { fatigueTapSpec, fatigueTaps, spectralEpochBuffers } from '../../lib/exposure/fatigue-taps.js';
 import { fatigueMethod } from '../../lib/exposure/fatigue-method.js';
 import { DEFAULTS } from '../../lib/job/defaults.js';
+import { JOB_FORMAT } from '../../lib/job/job-schema.js';
+import { jobSchemaValidator } from '../../lib/job/validate-job-schema.js';
 
 describe('resolveFatigueSettings(partial)', () => {
   it('resolveFatigueSettings fills missing keys from FATIGUE_DEFAULTS (a partial or null block is fine)', () => {
@@ -37,5 +39,21 @@ describe('fatigueMethod(settings, filterBand, rates)', () => {
     expect(m.band_hz).toEqual([30, 400]);
     expect(m.description).toContain('1024-point at 1000 Hz, 2048-point at 2000 Hz');
     expect(m.description).toContain('not an individual');
+  });
+});
+
+describe('job schema settings.fatigue', () => {
+  const job = (fatigue: unknown) => ({
+    format: JOB_FORMAT, title: 't', settings: { fatigue },
+    workers: [{ id: 'W1', recordings: [{ file: 'a.edf', condition: 'c', channels: [{ signal: 's' }], segments: 'annotations' }] }],
+  });
+  it('accepts a partial, null or band-less fatigue block and rejects unknown keys and bad values', () => {
+    const validate = jobSchemaValidator();
+    expect(validate(job({ block_s: 300, band_hz: null }))).toBe(true);
+    expect(validate(job({ band_hz: [20, 250], min_epochs: 60 }))).toBe(true);
+    expect(validate(job(null))).toBe(true);
+    expect(validate(job({ blocks_s: 300 }))).toBe(false);
+    expect(validate(job({ min_epochs: 2 }))).toBe(false);
+    expect(validate(job({ epoch_s: 0 }))).toBe(false);
   });
 });
