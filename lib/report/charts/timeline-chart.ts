@@ -8,18 +8,18 @@ import { niceAxis } from './nice-ticks.js';
 export interface TimelineLabels { time: string; load: string; mean: string; max: string }
 
 /**
- * Chart model for one envelope trace. The y axis runs to the 99th percentile of the bin maxima
- * (higher values are drawn at the top edge) so that a single artefact does not flatten the picture.
+ * Chart model for one envelope trace. The y axis runs to the 95th percentile of the bin maxima
+ * (higher values are drawn at the top edge) so that a few short peaks do not flatten the picture.
  * @param segmentOrder task labels in report order (fixes each task's band shade across charts)
  */
-export function timelineChart(id: string, trace: EnvelopeTrace, caption: string, labels: TimelineLabels, segmentOrder: string[], width = 483, height = 118): ChartModel {
+export function timelineChart(id: string, trace: EnvelopeTrace, caption: string, labels: TimelineLabels, segmentOrder: string[], width = 483, height = 100): ChartModel {
   const n = trace.mean.length;
   const hours = trace.step_s / 3600;
   const xs = new Array<number>(n);
   for (let i = 0; i < n; i++) xs[i] = (i + 0.5) * hours;
   const maxes = trace.max.filter((v): v is number => v !== null && Number.isFinite(v)).sort((a, b) => a - b);
   const means = trace.mean.filter((v): v is number => v !== null && Number.isFinite(v));
-  const top = Math.max(maxes.length ? maxes[Math.floor(0.99 * (maxes.length - 1))] : 1, means.length ? Math.max(...means) : 1, 1);
+  const top = Math.max(maxes.length ? maxes[Math.floor(0.95 * (maxes.length - 1))] : 1, means.length ? Math.max(...means) : 1, 1);
   const end = Math.max(n * hours, ...trace.segments.map((s) => s.end_s / 3600));
   const x = niceAxis(labels.time, 0, end, 8);
   x.max = end; // the axis ends with the recording
