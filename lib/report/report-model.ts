@@ -149,17 +149,20 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
   }
   // table: medians across workers beside the historical values
   const ctxRows: string[][] = [];
+  if (units.every((u) => u === '%MVE')) ctxRows.push([t.contextTableRow, '', '', '2–5', '10–14', '50–70', '', '']);
+  let prevM = '', prevS = '';
   for (const m of muscles) for (const s of [...segments, 'all']) for (const c of conditions) {
     const rs = rowsOf(m, s, c);
     if (!rs.length) continue;
+    const showM = m !== prevM, showS = showM || s !== prevS;
+    prevM = m; prevS = s;
     const f = (k: string) => { const v = medianRange(rs.map((r) => num(r, k))); return v ? `${formatNumber(v.median)} (${formatNumber(v.min)}–${formatNumber(v.max)})` : '–'; };
-    ctxRows.push([m, s, c, f('p10'), f('p50'), f('p90'), (() => { const v = medianRange(rs.map((r) => r.gaps_per_min)); return v ? formatNumber(v.median) : '–'; })(), (() => { const v = medianRange(rs.map((r) => r.rest_pct)); return v ? formatNumber(v.median) : '–'; })()]);
+    ctxRows.push([showM ? m : '', showS ? s : '', c, f('p10'), f('p50'), f('p90'), (() => { const v = medianRange(rs.map((r) => r.gaps_per_min)); return v ? formatNumber(v.median) : '–'; })(), (() => { const v = medianRange(rs.map((r) => r.rest_pct)); return v ? formatNumber(v.median) : '–'; })()]);
   }
-  if (units.every((u) => u === '%MVE')) ctxRows.push([t.contextTableRow, '', '', '2–5', '10–14', '50–70', '', '']);
   pOverview.push(...ctxBlocks, { type: 'table', small: true, columns: [
-    { label: L.muscle, width: 1.6 }, { label: L.segment, width: 1.0 }, { label: L.condition, width: 1.1 },
-    { label: `${L.static} (${unit})`, width: 1.0, align: 'right' }, { label: `${L.median} (${unit})`, width: 1.0, align: 'right' },
-    { label: `${L.peak} (${unit})`, width: 1.0, align: 'right' }, { label: L.gapsPerMin, width: 0.6, align: 'right' }, { label: L.rest, width: 0.55, align: 'right' },
+    { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.85 }, { label: L.condition, width: 1.25 },
+    { label: `${L.static} (${unit})`, width: 1.1, align: 'right' }, { label: `${L.median} (${unit})`, width: 1.15, align: 'right' },
+    { label: `${L.peak} (${unit})`, width: 1.25, align: 'right' }, { label: L.gapsPerMin, width: 0.55, align: 'right' }, { label: L.rest, width: 0.5, align: 'right' },
   ], rows: ctxRows });
 
   // ---------------------------------------------------------------- EVA
