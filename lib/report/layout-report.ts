@@ -2,7 +2,7 @@
 // metrics, tables break across sheets with their header row repeated, charts and caution boxes
 // are never split, and every sheet gets a "page N of M" footer. The output is a list of draw
 // items per sheet (PDF coordinates: pt, origin bottom left) that renderPdf() only has to paint.
-import { chartMarks, type Mark, type Measure } from './charts/chart-marks.js';
+import { chartMarks, fitText, type Mark, type Measure } from './charts/chart-marks.js';
 import type { ChartModel, RGB } from './charts/chart-model.js';
 import { INK, MUTED } from './charts/chart-styles.js';
 import { fillRequired } from './fill-template.js';
@@ -220,7 +220,10 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
   pages.forEach((p, i) => {
     const yb = PAGE.bottom - 26;
     p.items.push({ k: 'line', x1: PAGE.left, y1: yb + 10, x2: r2(PAGE.left + CONTENT_WIDTH), y2: yb + 10, color: RULE, width: 0.5 });
-    const right = safeText(fillRequired(text.footer, { title: text.title, page: i + 1, pages: n }));
+    const pageOnly = fillRequired(text.footer, { title: '', page: i + 1, pages: n });
+    const room = CONTENT_WIDTH - measure(text.footerLeft, 7.5) - measure(pageOnly, 7.5) - 24;
+    const title = fitText(safeText(text.title), room, 7.5, measure) || '…';
+    const right = safeText(fillRequired(text.footer, { title, page: i + 1, pages: n }));
     p.items.push({ k: 'text', x: r2(PAGE.left + CONTENT_WIDTH - measure(right, 7.5)), y: yb, text: right, size: 7.5, color: MUTED });
     p.items.push({ k: 'text', x: PAGE.left, y: yb, text: safeText(text.footerLeft), size: 7.5, color: MUTED });
   });

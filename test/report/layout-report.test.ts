@@ -74,3 +74,14 @@ describe('layoutReport(model, measure, safeText, text)', () => {
     expect(v && v.k === 'text' ? v.x + fonts.measure('3.0', v.size) : 0).toBeCloseTo(PAGE.left + CONTENT_WIDTH - 3, 1);
   });
 });
+
+describe('layoutReport footers', () => {
+  it('layoutReport shortens a very long title in the footer so "page N of M" stays inside the margin', async () => {
+    const f = await loadReportFonts();
+    const model: ReportModel = { meta: { title: 't', author: 'a', subject: 's', keywords: [], creator: 'c' }, pages: [{ id: 'p', blocks: [{ type: 'paragraph', text: 'x' }] }] };
+    const laid = layoutReport(model, f.measure, f.safeText, { footer: '{title} · page {page} of {pages}', title: 'A very long study title '.repeat(8), footerLeft: 'shiftload 0.1.0' });
+    const footer = laid[0].items.find((i) => i.k === 'text' && i.text.endsWith('page 1 of 1'));
+    expect(footer && footer.k === 'text' ? footer.x : 0).toBeGreaterThan(PAGE.left + f.measure('shiftload 0.1.0', 7.5));
+    expect(footer && footer.k === 'text' ? footer.text : '').toContain('…');
+  });
+});
