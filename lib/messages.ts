@@ -12,6 +12,7 @@ export const msg = {
   emptyFile: (file: string) => `${file}: file is empty`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read (${reason})`,
   outputIsInput: (file: string) => `${file}: output path is also an input; refusing to overwrite an input`,
+  outputNotFolder: (dir: string) => `${dir}: output path exists and is not a folder`,
   outputExists: (dir: string) => `${dir}: output folder exists and is not empty; use --force to reuse it`,
   badOption: (option: string, expected: string, got: string) => `--${option}: expected ${expected}, got ${got}`,
   parameter: (name: string, range: string, got: string | number) => `${name} must be ${range}, got ${got}`,
@@ -21,17 +22,229 @@ export const msg = {
 // io: readers and writers (EDF family, CSV)
 // ---------------------------------------------------------------------------------------------
 
+/** Reader and writer messages (EDF/EDF+/BDF/BDF+, CSV/TSV). Each names the file and the field/byte/line. */
+export const ioMsg = {
+  unknownFormat: (file: string) => `${file}: unknown recording format (expected EDF/BDF by header, or .csv/.tsv/.txt)`,
+  headerTooShort: (file: string, size: number, need: number) => `${file}: header truncated: file has ${size} bytes, the EDF header needs ${need}`,
+  headerNotAscii: (file: string, field: string, offset: number, byte: number) =>
+    `${file}: header field ${field} (byte ${offset}) holds byte 0x${byte.toString(16).padStart(2, '0')}, expected printable ASCII (0x20-0x7E)`,
+  headerNumber: (file: string, field: string, offset: number, text: string, expected: string) =>
+    `${file}: header field ${field} (byte ${offset}): expected ${expected}, got '${text}'`,
+  headerBytes: (file: string, said: number, ns: number) =>
+    `${file}: header field number of bytes in header (byte 184) says ${said}, expected 256 x (${ns} signals + 1) = ${256 * (ns + 1)}`,
+  headerLongerThanFile: (file: string, need: number, size: number, ns: number) =>
+    `${file}: header of ${ns} signals needs ${need} bytes, file holds only ${size} (truncated or wrong number of signals at byte 252)`,
+  digitalRange: (file: string, signal: string, offset: number, dmin: number, dmax: number) =>
+    `${file}: signal ${signal}: digital minimum ${dmin} must be below digital maximum ${dmax} (byte ${offset})`,
+  digitalLimits: (file: string, signal: string, offset: number, value: number, lo: number, hi: number) =>
+    `${file}: signal ${signal}: digital limit ${value} (byte ${offset}) is outside ${lo}..${hi} for this format`,
+  physicalRange: (file: string, signal: string, offset: number, v: number) =>
+    `${file}: signal ${signal}: physical minimum equals physical maximum (${v}, byte ${offset})`,
+  recordCount: (file: string, said: number, holds: number) =>
+    `${file}: header says ${said} data records (byte 236), file holds ${holds}${holds < said ? ' (truncated?)' : ' (extra data after the last record)'}`,
+  partialRecord: (file: string, records: number, extra: number, recordSize: number) =>
+    `${file}: file ends inside data record ${records + 1}: ${extra} of ${recordSize} bytes present (truncated?)`,
+  noDataRecords: (file: string) => `${file}: header field number of data records (byte 236) is 0; the file holds no data`,
+  talSyntax: (file: string, record: number, offset: number, what: string) =>
+    `${file}: annotation in data record ${record + 1} (byte ${offset}): ${what}`,
+  noTimekeeping: (file: string, record: number, offset: number) =>
+    `${file}: data record ${record + 1} (byte ${offset}) has no time-keeping annotation (EDF+ requires one per record)`,
+  notContinuous: (file: string, record: number, offset: number, t: number, expected: number) =>
+    `${file}: data record ${record + 1} (byte ${offset}) starts at ${t} s by its time-keeping annotation, expected ${expected} s in a continuous (EDF+C/BDF+C) file`,
+  writerDigital: (label: string, lo: number, hi: number, min: number, max: number) =>
+    `EDF writer: signal '${label}': digital range ${lo}..${hi} must lie within ${min}..${max} with minimum below maximum`,
+  writerStart: (start: string) => `EDF writer: start '${start}' must be YYYY-MM-DDTHH:MM:SS`,
+  writerSubsecond: (x: number) => `EDF writer: start_subsecond_s must be in [0, 1), got ${x}`,
+  writerNoSignals: () => 'EDF writer: at least one signal is needed',
+  unknownSignal: (file: string, index: number, count: number) => `${file}: no signal with index ${index} (file has ${count})`,
+  // CSV / TSV
+  csvNoHeader: (file: string) => `${file}:1: expected a header row with channel names`,
+  csvNoData: (file: string) => `${file}: no data rows after the header`,
+  csvNoRate: (file: string) => `${file}: no time column (time, time_s, t, "time [s]") and no sampling rate given (--rate)`,
+  csvNotNumber: (file: string, line: number, column: string, text: string) =>
+    `${file}:${line} column ${column}: expected a number, got '${text}'`,
+  csvRagged: (file: string, line: number, got: number, expected: number) =>
+    `${file}:${line}: row has ${got} cells, the header has ${expected}`,
+  csvTimeOrder: (file: string, line: number, prev: number, t: number) =>
+    `${file}:${line}: time ${t} s does not increase (previous row ${prev} s); time stamps must be strictly increasing`,
+  csvTimeUneven: (file: string, line: number, dt: number, median: number) =>
+    `${file}:${line}: time step ${dt} s differs from the median step ${median} s by more than 1%; resample to a uniform rate first`,
+  csvTimeMissing: (file: string, line: number) => `${file}:${line}: the time cell is empty`,
+  // writer
+  writerLabel: (label: string) => `EDF writer: signal label '${label}' must be printable ASCII`,
+  writerRate: (rates: string, duration: number) =>
+    `EDF writer: sampling rates ${rates} Hz give no whole number of samples per ${duration} s data record`,
+  writerNumber: (what: string, value: number) => `EDF writer: ${what} ${value} does not fit in an 8-character EDF header field`,
+  writerPhysRange: (label: string, lo: number, hi: number) => `EDF writer: signal '${label}': physical minimum ${lo} must be below maximum ${hi}`,
+  // convert
+  convertMixedRates: (rates: string) =>
+    `convert --format csv: the selected signals have different sampling rates (${rates} Hz); select signals of one rate with --signals`,
+  convertUnknownSignal: (name: string, labels: string) => `--signals: no signal named '${name}' (signals: ${labels})`,
+  convertSpan: (start: number, end: number, duration: number) =>
+    `--start ${start} / --end ${end}: expected 0 <= start < end <= ${duration} s (recording duration)`,
+};
+
 // ---------------------------------------------------------------------------------------------
 // dsp
 // ---------------------------------------------------------------------------------------------
+
+export const dspMsg = {
+  samplingRate: (fs: number) => `sampling rate fs must be a positive number in Hz, got ${fs}`,
+  filterOrder: (got: number) => `filter order must be an integer from 1 to 10, got ${got}`,
+  btype: (got: string) => `btype must be one of lowpass, highpass, bandpass, bandstop, got ${got}`,
+  cutoffCount: (btype: string, got: number) => `${btype} needs ${btype === 'lowpass' || btype === 'highpass' ? 'one cut-off' : 'two cut-offs [low, high]'} in Hz, got ${got} value(s)`,
+  cutoffBelowNyquist: (which: string, fs: number, got: number) => `${which} must be below fs/2 (fs=${fs} Hz → ${fs / 2} Hz), got ${got}`,
+  cutoffPositive: (which: string, got: number) => `${which} must be above 0 Hz, got ${got}`,
+  cutoffOrder: (low: number, high: number) => `low cut-off must be below the high cut-off (${high} Hz), got ${low}`,
+  notchFrequency: (fs: number, got: number) => `notch frequency must be between 0 and fs/2 (fs=${fs} Hz → ${fs / 2} Hz), got ${got}`,
+  notchQ: (got: number) => `notch quality factor Q must be a positive number, got ${got}`,
+  mainsHz: (got: unknown) => `mains frequency must be 50 or 60 Hz (or null for no notch), got ${String(got)}`,
+  harmonics: (got: number) => `mains harmonics must be an integer from 1 to 20, got ${got}`,
+  ziLength: (expected: number, got: number) => `initial state must have 2 values per section (${expected}), got ${got}`,
+  sosShape: (got: number) => `sos must hold 6 numbers per section (length a multiple of 6, at least 6), got length ${got}`,
+  padlen: (n: number, padlen: number) => `the signal must be longer than padlen (${padlen} samples) for odd padding, got ${n} samples`,
+  padlenValue: (got: number) => `padlen must be a whole number of samples ≥ 0, got ${got}`,
+  nperseg: (got: number) => `nperseg must be a power of two from 8 to 1048576 samples, got ${got}`,
+  noverlap: (nperseg: number, got: number) => `noverlap must be a whole number from 0 to nperseg − 1 (nperseg=${nperseg} → ${nperseg - 1}), got ${got}`,
+  rmsWindow: (windowS: number, fs: number) => `RMS window must cover at least one sample (window_s=${windowS} s at fs=${fs} Hz), got ${windowS}`,
+  envelopeRate: (fs: number, got: number) => `envelope rate must be above 0 and at most fs (fs=${fs} Hz), got ${got}`,
+  frequencyRange: (fmin: number, fmax: number) => `frequency range must have fminHz below fmaxHz, got ${fmin}…${fmax} Hz`,
+  spectrumLength: (lf: number, lp: number) => `frequencies and PSD must have the same length, got ${lf} and ${lp}`,
+  medianConvention: (got: string) => `median frequency convention must be one of bin, interp, got ${got}`,
+};
 
 // ---------------------------------------------------------------------------------------------
 // job file
 // ---------------------------------------------------------------------------------------------
 
+/** Quote a value for a message: text in single quotes, everything else as JSON. */
+const shown = (v: unknown): string => (typeof v === 'string' ? `'${v}'` : JSON.stringify(v));
+const listed = (xs: readonly string[], max = 12): string =>
+  (xs.length === 0 ? 'none' : xs.slice(0, max).join(', ') + (xs.length > max ? `, … (${xs.length} in all)` : ''));
+
+export const jobMsg = {
+  /** The one-line form of every job-file problem: "job.yaml:14 workers[0].id: <what>". */
+  at: (file: string, line: number, path: string, what: string) => `${file}:${line} ${path}: ${what}`,
+  /** A problem at a line of a file without key paths (CSV segment files). */
+  atLine: (file: string, line: number, what: string) => `${file}:${line}: ${what}`,
+  yamlSyntax: (file: string, line: number, reason: string) => `${file}:${line}: YAML syntax error: ${reason}`,
+  yamlDocuments: (file: string, n: number) => `${file}: expected one YAML document, found ${n}`,
+  tooLarge: (file: string, limit: number) => `${file}: larger than ${limit} bytes; a job file is a short text file`,
+  tooManyNodes: (file: string, limit: number) => `${file}: more than ${limit} values after expanding aliases; refusing to load`,
+  notUtf8: (file: string) => `${file}: not UTF-8 text`,
+  // schema-level (the "what" part)
+  unknownKey: (suggestion: string | null, allowed: readonly string[]) =>
+    (suggestion ? `unknown key; did you mean ${suggestion}?` : `unknown key; expected one of ${listed(allowed, 30)}`),
+  missingKey: (key: string) => `missing required key '${key}'`,
+  wrongType: (expected: string, got: unknown) => `expected ${expected}, got ${describeValue(got)}`,
+  notOneOf: (allowed: readonly unknown[], got: unknown) => `expected one of ${allowed.map(shown).join(', ')}, got ${describeValue(got)}`,
+  wrongFormat: (expected: string, got: unknown) => `expected ${shown(expected)} (this tool reads that job format), got ${describeValue(got)}`,
+  outOfRange: (range: string, got: unknown) => `expected a value ${range}, got ${describeValue(got)}`,
+  tooFew: (min: number, what: string) => (min === 1 ? `must not be empty` : `expected at least ${min} ${what}`),
+  tooMany: (max: number, what: string) => `expected at most ${max} ${what}`,
+  emptyText: () => 'must not be empty text',
+  expectedOneOfShapes: (shapes: readonly string[], got: unknown) => `expected ${shapes.join(' or ')}, got ${describeValue(got)}`,
+  // semantic
+  fileMissing: (written: string) => `file '${written}' not found (paths are relative to the job file)`,
+  fileIsFolder: (written: string) => `'${written}' is a folder, expected a file`,
+  fileIsJob: (written: string) => `'${written}' is the job file itself, expected a recording`,
+  cannotDescribe: (written: string, reason: string) => `cannot read '${written}': ${reason}`,
+  noSignal: (signal: string, file: string, signals: readonly string[]) => `no signal '${signal}' in ${file} (signals: ${listed(signals)})`,
+  noSignalForChannel: (signal: string, file: string, used: string, signals: readonly string[]) =>
+    `no signal '${signal}' in ${file}, needed by ${used} (signals: ${listed(signals)})`,
+  duplicateChannel: (signal: string, first: string) => `signal '${signal}' is already analysed at ${first}`,
+  duplicateMuscle: (muscle: string, first: string) => `muscle '${muscle}' already named at ${first}; each channel of a recording needs its own muscle name`,
+  duplicateWorker: (id: string, first: string) => `worker id '${id}' is already used at ${first}`,
+  duplicateRecording: (file: string, first: string) => `file '${file}' is already listed for this worker at ${first}`,
+  segmentOrder: (start: number, end: number) => `start_s (${start}) must be less than end_s (${end})`,
+  segmentOutside: (start: number, end: number, duration: number, file: string) =>
+    `${start}–${end} s lies outside ${file} (0–${duration} s)`,
+  segmentsOverlap: (label: string, start: number, end: number, other: string, oStart: number, oEnd: number) =>
+    `segment '${label}' (${start}–${end} s) overlaps '${other}' (${oStart}–${oEnd} s)`,
+  noSegments: (how: string, file: string) => `no segments: ${how} in ${file}`,
+  spanTimesOrAnnotation: () => 'give either start_s and end_s, or annotation (not both, not neither)',
+  spanNoFile: () => "missing required key 'file' (a worker-level span must name its file)",
+  durationWithoutAnnotation: () => 'duration_s is only used with annotation',
+  noAnnotation: (text: string, file: string, available: readonly string[]) =>
+    `no annotation '${text}' in ${file} (annotations: ${listed(available.map((a) => `'${a}'`))})`,
+  annotationNoDuration: (text: string, onset: number) =>
+    `annotation '${text}' at ${onset} s has no duration; add duration_s`,
+  referenceNeeded: (normalize: string) => `no reference: normalize is ${normalize}, so each worker (or each recording) needs reference`,
+  restNeeded: () => 'no rest: noise_correction is true, so each worker (or each recording) needs rest; or set settings.noise_correction: false',
+  mveReferenceNeeded: () => 'no mve_reference: gap_threshold_unit is mve with normalize rve, so each worker needs mve_reference; or set settings.gap_threshold_unit: as-normalized',
+  mveUnitImpossible: (normalize: string) => `gap_threshold_unit mve needs normalize mve or rve, but normalize is ${normalize}`,
+  bandOrder: (low: number, high: number) => `low edge ${low} Hz must be below high edge ${high} Hz`,
+  bandAboveNyquist: (high: number, signal: string, file: string, rate: number) =>
+    `high edge ${high} Hz is not below half the sampling rate of '${signal}' in ${file} (${rate} Hz → ${rate / 2} Hz)`,
+  notIncreasing: () => 'edges must increase strictly',
+  gapMaxBelowMin: (max: number, min: number) => `gap_max_s (${max}) must be greater than gap_min_s (${min})`,
+  segmentsBothSources: () => "give one of 'annotations' or 'csv', not both",
+  segmentsNoSource: () => "give 'annotations' or 'csv'",
+  csvHeader: (got: string) => `expected the header line label,start_s,end_s, got '${got}'`,
+  csvColumns: (n: number) => `expected 3 fields (label,start_s,end_s), got ${n}`,
+  csvQuote: () => 'unterminated quoted field',
+  csvNumber: (got: string) => `expected a number of seconds, got '${got}'`,
+  // init
+  initExists: (file: string) => `${file}: already exists; use --force to overwrite it`,
+  initNotFolder: (dir: string) => `${dir}: exists and is not a folder`,
+};
+
+/** A short description of a value for "got …" in messages. */
+function describeValue(v: unknown): string {
+  if (v === null || v === undefined) return 'nothing (null)';
+  if (Array.isArray(v)) return 'a list';
+  if (typeof v === 'object') return 'a mapping';
+  if (typeof v === 'string') return `text '${v.length > 40 ? v.slice(0, 40) + '…' : v}'`;
+  if (typeof v === 'boolean') return `${v}`;
+  return `${v}`;
+}
+
 // ---------------------------------------------------------------------------------------------
 // exposure and findings
 // ---------------------------------------------------------------------------------------------
+
+export const exposureMsg = {
+  percentileOutOfRange: (q: number) => `percentile q must be a number from 0 to 100, got ${q}`,
+  edgesNotIncreasing: (name: string, got: readonly number[]) =>
+    `${name} must be finite, strictly increasing numbers (at least one), got [${got.join(', ')}]`,
+  referenceNotPositive: (got: number) => `reference amplitude must be a finite number > 0 µV, got ${got}`,
+  ratioNotPositive: (got: number) => `RVE/MVE ratio k must be a finite number > 0, got ${got}`,
+  emptySample: (name: string) => `${name}: needs at least one finite value, got none`,
+  tooFewForStatistic: (name: string, need: number, got: number) =>
+    `${name}: needs at least ${need} finite values, got ${got}`,
+  unknownMeasure: (got: string, valid: readonly string[]) =>
+    `compare measure must be one of ${valid.join(', ')} or p<q>, got ${got}`,
+};
+
+/** Texts of findings raised by the analysis (lib/study/run-study.ts). */
+export const findingText = {
+  noiseUnavailable: (signal: string) => `no usable rest data for ${signal}; the envelope is not noise-corrected`,
+  referenceZero: (signal: string, noise: number | null) => `reference amplitude of ${signal} is not above the noise level${noise === null ? '' : ` (${noise.toPrecision(3)} µV)`}; values cannot be normalized`,
+  noReference: (signal: string, method: string) => `no ${method.toUpperCase()} reference value for ${signal}; its normalized values are left empty`,
+  thresholdNotConverted: (signal: string) => `the %MVE gap threshold could not be converted to %RVE for ${signal} (no MVE reference); gap and rest figures are left empty`,
+  clipping: (clipped: number, samples: number) => `${clipped} of ${samples} samples (${(100 * clipped / Math.max(1, samples)).toPrecision(2)} %) at the recorder's digital limits (clipping); amplitudes in those spans are underestimated`,
+  segmentTooShort: (label: string, length: number, window: number) => `segment '${label}' lasts ${length.toPrecision(3)} s, shorter than the ${window} s RMS window; its figures rest on very few values`,
+  excludedTime: (label: string, excluded: number, length: number) => `${excluded.toFixed(1)} s of ${length.toFixed(1)} s in segment '${label}' had no valid data (missing or NaN samples) and were left out`,
+  referenceWeak: (signal: string, p90: number) => `${signal}: task values reach ${p90.toFixed(0)} %MVE (90th percentile above 100 %); the reference contraction was probably not maximal, so %MVE figures are overstated`,
+  discontinuous: (n: number) => `the recording has ${n} interruption(s) (EDF+D); filters restart after each and the time between records counts as no data`,
+};
+
+// ---------------------------------------------------------------------------------------------
+// sim: simulation spec and `shiftload simulate`
+// ---------------------------------------------------------------------------------------------
+
+export const simMsg = {
+  specNotMapping: (file: string) => `${file}: expected a YAML mapping at the top level (a shiftload-simulation/1 spec)`,
+  specYaml: (file: string, line: number, reason: string) => `${file}: line ${line}: not valid YAML (${reason})`,
+  specFormat: (file: string, got: string) => `${file}: format: expected "shiftload-simulation/1", got ${got}`,
+  specField: (file: string, path: string, expected: string, got: string) => `${file}: ${path}: expected ${expected}, got ${got}`,
+  specUnknownRef: (file: string, path: string, what: string, got: string, valid: string[]) =>
+    `${file}: ${path}: unknown ${what} "${got}" (valid: ${valid.join(', ')})`,
+  specUnknownVariant: (file: string, got: string, valid: string[]) => `${file}: variants: no variant "${got}" (valid: ${valid.join(', ')})`,
+  specDuplicate: (file: string, path: string, got: string) => `${file}: ${path}: "${got}" appears twice`,
+  gapDesign: (file: string, path: string, detail: string) => `${file}: ${path}: ${detail}`,
+  outNotFolder: (dir: string) => `${dir}: is a file, expected an output folder`,
+};
 
 // ---------------------------------------------------------------------------------------------
 // report

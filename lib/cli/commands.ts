@@ -1,11 +1,25 @@
 // The list of command modules, one file per command. Add a new command here.
 import type { CommandModule } from 'yargs';
 
+import { convertCommand } from './convert.js';
+import { inspectCommand } from './inspect.js';
 import { reportCommand } from './report.js';
 import { versionInfoCommand } from './version-info.js';
+import { analyzeCommand } from './analyze.js';
+import { checkCommand } from './check.js';
+import { initCommand } from './init.js';
+import { schemaCommand } from './schema.js';
+import { simulateCommand } from './simulate.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const commands: CommandModule<any, any>[] = [
   versionInfoCommand,
+  initCommand,
+  checkCommand,
+  analyzeCommand,
   reportCommand,
+  schemaCommand,
+  inspectCommand,
+  convertCommand,
+  simulateCommand,
 ];

@@ -20,6 +20,11 @@ export interface SignalInfo {
   transducer: string;
   /** Total number of samples of this signal in the file. */
   samples: number;
+  /**
+   * CSV/TSV only: number of empty cells in this column, read as NaN (a data-quality finding for
+   * callers). Absent for EDF/BDF, which cannot hold missing values.
+   */
+  nan_count?: number;
 }
 
 /** An EDF+ annotation (TAL) or a CSV/segment-file event. Times in s from the recording start. */
@@ -38,8 +43,18 @@ export interface RecordingInfo {
   format: RecordingFormat;
   /** Start date-time from the header as 'YYYY-MM-DDTHH:MM:SS' (local time, no zone), or null. */
   start: string | null;
+  /**
+   * EDF+/BDF+: seconds (0 ≤ x < 1) by which the first data record starts after `start` (from its
+   * time-keeping TAL). All times in this interface are relative to that first record. Absent: 0.
+   */
+  start_subsecond_s?: number;
   /** Total duration in s (records × record duration; CSV: samples / rate). */
   duration_s: number;
+  /**
+   * EDF+D only: end of the last data record in s from the start, by the records' own time-keeping
+   * (larger than duration_s when the file has gaps). Absent for continuous files (= duration_s).
+   */
+  end_s?: number;
   signals: SignalInfo[];
   annotations: Annotation[];
   /** EDF/BDF record duration in s; null for CSV. */
@@ -53,6 +68,11 @@ export interface ReadOptions {
   start_s?: number;
   /** End of the span (exclusive), s (default: end of recording). */
   end_s?: number;
+  /**
+   * EDF/BDF: deliver the stored digital integers instead of physical values (tests, format
+   * tools). Ignored by the CSV reader. @default false
+   */
+  digital?: boolean;
 }
 
 /**

@@ -16,6 +16,7 @@ import { medianRange } from './median-range.js';
 import { readComparisons, type ReportComparison } from './read-comparisons.js';
 import { loadReportTexts, type ReportTexts } from './report-texts.js';
 import { flattenSettings, settingAt } from './setting-at.js';
+import { SETTINGS_TABLE } from '../job/defaults.js';
 
 export interface TableColumn {
   label: string;
@@ -237,7 +238,7 @@ function recordedSeconds(rows: ResultRow[]): number {
   const per = new Map<string, number>();
   for (const r of rows) {
     const key = `${r.worker}\u0000${r.condition}\u0000${r.recording}`;
-    const d = r.segment === 'all' ? r.end_s - r.start_s : 0;
+    const d = r.segment === 'all' ? rowSpan(r) : 0;
     per.set(key, Math.max(per.get(key) ?? 0, d));
   }
   let s = 0;
@@ -250,7 +251,7 @@ function qualitySentence(results: StudyResults, texts: ReportTexts, recordedS: n
   if (!f.length) return texts.t.qualityNone;
   // excluded time: per recording×signal from the "all" rows, averaged over channels of a recording
   let total = 0, excluded = 0;
-  for (const r of results.rows) if (r.segment === 'all') { total += r.end_s - r.start_s; excluded += Math.max(0, r.end_s - r.start_s - r.valid_s); }
+  for (const r of results.rows) if (r.segment === 'all') { total += rowSpan(r); excluded += Math.max(0, rowSpan(r) - r.valid_s); }
   void recordedS;
   return fillRequired(texts.t.qualitySummary, {
     nFindings: f.length, nWarnings: f.filter((x) => x.severity === 'warning').length, nErrors: f.filter((x) => x.severity === 'error').length,
@@ -316,17 +317,25 @@ function comparisonBlocks(cmp: ReportComparison[], texts: ReportTexts): Block[] 
   blocks.push({ type: 'table', small: true, columns: [
     { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.9 }, { label: L.measure, width: 0.9 }, { label: `${L.condition} A → B`, width: 1.4 },
     { label: L.n, width: 0.3, align: 'right' }, { label: L.difference, width: 0.9, align: 'right' }, { label: L.ci, width: 1.25, align: 'right' }, { label: L.pValue, width: 0.5, align: 'right' },
-  ], rows: cmp.map((c) => [c.muscle, c.segment, c.measure, `${c.condition_a} → ${c.condition_b}`, String(c.n), `${formatNumber(c.median_difference)} ${c.unit}`,
+  ], rows: cmp.map((c) => [c.muscle, c.segment, measureName(c.measure, texts), `${c.condition_a} → ${c.condition_b}`, String(c.n), `${formatNumber(c.median_difference)} ${c.unit}`,
     c.descriptive_only || c.ci_low === null || c.ci_high === null ? '–' : `${formatNumber(c.ci_low)} to ${formatNumber(c.ci_high)}`, c.p_value === null ? '–' : formatP(c.p_value)]) });
   const charts: ChartModel[] = [];
   cmp.forEach((c, i) => {
     if (!c.per_worker.length) return;
-    charts.push(pairedChart(`paired-${i + 1}-${slug(c.muscle)}-${slug(c.segment)}-${slug(c.measure)}`, c.per_worker, c.condition_a, c.condition_b, `${c.measure} (${c.unit})`,
-      fillRequired(t.captions.paired, { measure: cap(c.measure), muscle: c.muscle, segment: c.segment, unit: c.unit, a: c.condition_a, b: c.condition_b }) + ' ' + c.statement +
+    charts.push(pairedChart(`paired-${i + 1}-${slug(c.muscle)}-${slug(c.segment)}-${slug(c.measure)}`, c.per_worker, c.condition_a, c.condition_b, `${measureName(c.measure, texts)} (${c.unit})`,
+      fillRequired(t.captions.paired, { measure: cap(measureName(c.measure, texts)), muscle: c.muscle, segment: c.segment, unit: c.unit, a: c.condition_a, b: c.condition_b }) + ' ' + c.statement +
       (c.descriptive_only ? ' ' + t.comparisonDescriptive : '')));
   });
   for (let i = 0; i < charts.length; i += 3) blocks.push({ type: 'charts', charts: charts.slice(i, i + 3) });
   return blocks;
+}
+
+/** Plain name of a ResultRow measure key (p50 → "median load"); other percentiles as "P<q> load". */
+function measureName(key: string, texts: ReportTexts): string {
+  const named = (texts.t.measures as Record<string, string>)[key];
+  if (named) return named;
+  const m = /^p(\d+(?:\.\d+)?)$/.exec(key);
+  return m ? `${m[1]}th-percentile load` : key;
 }
 
 function formatP(p: number): string { return p < 0.001 ? '< 0.001' : formatNumber(p, p < 0.01 ? 3 : 2); }
@@ -336,25 +345,31 @@ function methodsBlocks(results: StudyResults, texts: ReportTexts, cite: (...k: s
   const M = t.methods as Record<string, string>;
   const s = results.settings;
   const L = t.labels as Record<string, string>;
+  // Paths: the flat keys of lib/job/defaults.ts first, then older nested spellings.
   const get = (...paths: string[]) => settingAt(s, paths);
   const fmt = (v: unknown) => (typeof v === 'number' ? formatSetting(v) : typeof v === 'string' ? v : typeof v === 'boolean' ? String(v) : undefined);
-  const band = get('filter.band_hz', 'bandpass.band_hz') as number[] | undefined;
-  const zero = get('filter.zero_phase', 'bandpass.zero_phase');
-  const notch = get('filter.notch_hz', 'notch.freq_hz', 'notch_hz');
+  const band = get('band_hz', 'filter.band_hz', 'bandpass.band_hz') as number[] | undefined;
+  const zero = get('zero_phase', 'filter.zero_phase', 'bandpass.zero_phase');
+  const notch = get('mains_hz', 'filter.notch_hz', 'notch.freq_hz', 'notch_hz');
+  const harmonics = get('mains_harmonics');
   const noiseOn = get('noise_correction.enabled', 'noise.enabled', 'noise_correction');
-  const normMethod = String(get('normalization.method', 'normalize.method', 'reference.method') ?? results.rows[0]?.unit ?? '').toLowerCase();
+  const normMethod = String(get('normalize', 'normalization.method', 'normalize.method') ?? results.rows[0]?.unit ?? '').toLowerCase();
   const normText = /mve|mvc/.test(normMethod) ? M.normMve : /rve/.test(normMethod) ? M.normRve : /peak/.test(normMethod) ? M.normTaskPeak : /none|uv/.test(normMethod) ? M.normNone : undefined;
+  const refWindow = fmt(get('reference_window_s', 'normalization.reference_window_s', 'normalize.window_s')) ?? L.notRecorded;
+  const filterType = ((v) => (v === undefined || v === 'butterworth' ? 'Butterworth' : v))(fmt(get('filter_type', 'filter.type', 'bandpass.type')));
   const vars: TemplateVars = {
-    filterType: ((v) => (v === 'butterworth' ? 'Butterworth' : v))(fmt(get('filter.type', 'bandpass.type'))) ?? L.notRecorded,
-    order: fmt(get('filter.order', 'bandpass.order')) ?? L.notRecorded,
-    highpass: fmt(get('filter.highpass_hz', 'bandpass.low_hz') ?? band?.[0]) ?? L.notRecorded,
-    lowpass: fmt(get('filter.lowpass_hz', 'bandpass.high_hz') ?? band?.[1]) ?? L.notRecorded,
+    filterType,
+    order: fmt(get('filter_order', 'filter.order', 'bandpass.order')) ?? L.notRecorded,
+    highpass: fmt(band?.[0] ?? get('filter.highpass_hz', 'bandpass.low_hz')) ?? L.notRecorded,
+    lowpass: fmt(band?.[1] ?? get('filter.lowpass_hz', 'bandpass.high_hz')) ?? L.notRecorded,
     zeroPhase: zero === true ? M.zeroPhaseYes : zero === false ? M.zeroPhaseNo : L.notRecorded,
-    window: fmt(get('envelope.window_s', 'rms.window_s')) ?? L.notRecorded,
-    rate: fmt(get('envelope.rate_hz', 'rms.rate_hz')) ?? L.notRecorded,
-    notch: typeof notch === 'number' ? fillTemplate(M.notch, { notch: fmt(notch) }) ?? '' : '',
-    noise: noiseOn === false ? M.noiseOff : fillTemplate(M.noise, { noiseSource: describeNoiseSource(get('noise_correction.source', 'noise.source')), noiseWindow: fmt(get('noise_correction.window_s', 'noise.window_s')) ?? L.notRecorded }) ?? M.noiseOff,
-    normalization: normText ? (fillTemplate(normText, { refWindow: fmt(get('normalization.reference_window_s', 'normalize.window_s')) ?? L.notRecorded }) ?? L.notRecorded) : L.notRecorded,
+    window: fmt(get('rms_window_s', 'envelope.window_s', 'rms.window_s')) ?? L.notRecorded,
+    rate: fmt(get('envelope_rate_hz', 'envelope.rate_hz', 'rms.rate_hz')) ?? L.notRecorded,
+    notch: typeof notch === 'number' ? fillTemplate(M.notch, { notch: fmt(notch),
+      harmonics: typeof harmonics === 'number' && harmonics > 1 ? fillTemplate(M.harmonics, { n: harmonics - 1 }) : '' }) ?? '' : '',
+    noise: noiseOn === false ? M.noiseOff : fillTemplate(M.noise, { noiseSource: describeNoiseSource(get('noise_correction.source', 'noise.source') ?? 'rest'),
+      noiseWindow: fmt(get('noise_window_s', 'noise_correction.window_s', 'noise.window_s')) ?? L.notRecorded }) ?? M.noiseOff,
+    normalization: normText ? (fillTemplate(normText, { refWindow }) ?? L.notRecorded) : L.notRecorded,
   };
   const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.methods }];
   blocks.push({ type: 'paragraph', text: fillRequired(M.pipeline, vars) + ' ' + M.sameChain });
@@ -363,18 +378,42 @@ function methodsBlocks(results: StudyResults, texts: ReportTexts, cite: (...k: s
   const pcts = (get('percentiles', 'apdf.percentiles') as number[] | undefined) ?? [10, 50, 90];
   blocks.push({ type: 'paragraph', text: fillRequired(M.percentiles, { percentiles: pcts.map((p) => `${formatSetting(p)}th`).join(', ') }) });
   cite('hyndman1996');
-  const gapUnit = String(get('gaps.threshold_unit', 'gap.threshold_unit') ?? results.rows[0]?.unit ?? '');
-  const gapText = fillTemplate(M.gaps, { gapThreshold: fmt(get('gaps.threshold', 'gap.threshold') ?? results.rows[0]?.gap_threshold), gapUnit, gapMin: fmt(get('gaps.min_duration_s', 'gap.min_duration_s')) });
+  const gapUnit = String(get('gap_threshold.unit', 'gaps.threshold_unit', 'gap.threshold_unit') ?? results.rows[0]?.unit ?? '');
+  const gapMax = get('gap_max_s', 'gaps.max_duration_s');
+  const restCounts = get('rest_counts');
+  const gapText = fillTemplate(M.gaps, {
+    gapThreshold: fmt(get('gap_threshold.value', 'gap_threshold_pct', 'gaps.threshold', 'gap.threshold') ?? results.rows[0]?.gap_threshold), gapUnit,
+    gapMin: fmt(get('gap_min_s', 'gaps.min_duration_s', 'gap.min_duration_s')),
+    gapMax: typeof gapMax === 'number' ? fillTemplate(M.gapMax, { gapMax: fmt(gapMax) }) : '',
+    restCounts: restCounts === 'gaps-only' ? M.restGapsOnly : M.restAll,
+  });
   if (gapText) { blocks.push({ type: 'paragraph', text: gapText }); cite('veiersted1990', 'hansson2000'); }
-  const sus = fillTemplate(M.sustained, { sustainedThreshold: fmt(get('sustained.threshold')), gapUnit, sustainedMin: fmt(get('sustained.min_duration_s')) });
+  const note = get('gap_threshold.note');
+  if (typeof note === 'string' && note) blocks.push({ type: 'paragraph', text: note });
+  const sus = fillTemplate(M.sustained, { sustainedMin: fmt(get('sustained_min_s', 'sustained.min_duration_s')) });
   if (sus) blocks.push({ type: 'paragraph', text: sus });
   const ampEdges = (get('eva.amplitude_edges') as number[] | undefined) ?? results.eva[0]?.amplitude_edges;
   const durEdges = (get('eva.duration_edges_s') as number[] | undefined) ?? results.eva[0]?.duration_edges_s;
   if (ampEdges && durEdges) blocks.push({ type: 'paragraph', text: fillRequired(M.eva, { ampEdges: ampEdges.map(formatSetting).join(', '), durEdges: durEdges.map(formatSetting).join(', '), unit: results.eva[0]?.unit ?? gapUnit }) });
   blocks.push({ type: 'paragraph', text: fillRequired(M.unit, { units: ordered(results.rows.map((r) => r.unit)).join(', ') || L.none }) });
   blocks.push({ type: 'caution', title: t.headings.cautions, items: [M.mvcSafety, ...texts.cautions.slice(0, 3)] });
+  const refs = results.references ?? [];
+  if (refs.length) {
+    blocks.push({ type: 'heading', level: 2, text: t.headings.referenceValues }, { type: 'paragraph', text: M.referencesIntro, small: true });
+    const anyMve = refs.some((r) => r.mve_uv !== null && r.mve_uv !== undefined);
+    const cols: TableColumn[] = [{ label: L.worker, width: 0.6 }, { label: L.condition, width: 1.1 }, { label: L.muscle, width: 1.5 }, { label: L.method, width: 0.7 },
+      { label: L.referenceUv, width: 0.8, align: 'right' }, { label: L.noiseUv, width: 0.7, align: 'right' }];
+    if (anyMve) cols.push({ label: L.mveUv, width: 0.7, align: 'right' });
+    blocks.push({ type: 'table', small: true, columns: cols, rows: refs.map((r) => {
+      const row = [r.worker, r.condition, r.muscle, r.method, formatNumber(r.reference_uv), formatNumber(r.noise_uv)];
+      if (anyMve) row.push(formatNumber(r.mve_uv));
+      return row;
+    }) });
+  }
   blocks.push({ type: 'heading', level: 2, text: t.headings.settings });
-  blocks.push({ type: 'table', small: true, columns: [{ label: L.setting, width: 1 }, { label: L.value, width: 2 }], rows: flattenSettings(s) });
+  const described = new Map(SETTINGS_TABLE.map((d) => [d.key, d]));
+  blocks.push({ type: 'table', small: true, columns: [{ label: L.setting, width: 1.1 }, { label: L.value, width: 1.2 }, { label: L.unit, width: 0.45 }, { label: L.meaning, width: 2.6 }],
+    rows: flattenSettings(s).map(([k, v]) => [k, v, described.get(k)?.unit ?? '', described.get(k)?.meaning ?? '']) });
   return blocks;
 }
 
@@ -398,12 +437,17 @@ function accountingBlocks(results: StudyResults, texts: ReportTexts, workers: st
   blocks.push({ type: 'table', small: true, columns: [
     { label: L.worker, width: 0.6 }, { label: L.condition, width: 1.1 }, { label: L.muscle, width: 1.5 }, { label: L.recorded, width: 0.8, align: 'right' },
     { label: L.valid, width: 0.7, align: 'right' }, { label: L.excluded, width: 0.8, align: 'right' }, { label: L.why, width: 1.3 },
-  ], rows: all.map((r) => [r.worker, r.condition, r.muscle, formatMinutes(r.end_s - r.start_s), formatMinutes(r.valid_s), formatMinutes(Math.max(0, r.end_s - r.start_s - r.valid_s)), why(r)]) });
+  ], rows: all.map((r) => [r.worker, r.condition, r.muscle, formatMinutes(rowSpan(r)), formatMinutes(r.valid_s), formatMinutes(Math.max(0, rowSpan(r) - r.valid_s)), why(r)]) });
   blocks.push({ type: 'heading', level: 2, text: t.headings.findings });
   if (!results.findings.length) blocks.push({ type: 'paragraph', text: t.qualityNone });
   else blocks.push({ type: 'table', small: true, columns: [{ label: L.severity, width: 0.6 }, { label: L.where, width: 1.6 }, { label: L.message, width: 3 }],
     rows: results.findings.map((f) => [f.severity, whereText(f), `${f.code}: ${f.message}`]) });
   return blocks;
+}
+
+/** Time covered by a row's segments, s (segment_s when the analysis gives it, else end − start). */
+function rowSpan(r: ResultRow): number {
+  return typeof r.segment_s === 'number' && Number.isFinite(r.segment_s) ? r.segment_s : r.end_s - r.start_s;
 }
 
 function matches(f: Finding, r: ResultRow): boolean {

@@ -33,10 +33,15 @@ export interface ResultRow {
   signal: string;
   /** Recording file (as written in the job). */
   recording: string;
-  /** Segment label; "all" for the whole recording. */
+  /** Task label; "all" for the whole recording. Every segment with this label is joined. */
   segment: string;
+  /** First start and last end of the task's segments, s from the recording start. */
   start_s: number;
   end_s: number;
+  /** Number of segments (occurrences) joined in this row. */
+  segments: number;
+  /** Total length of those segments, s. */
+  segment_s: number;
   /** Time that entered the statistics, s (segment length less excluded time). */
   valid_s: number;
   unit: LoadUnit;
@@ -83,10 +88,29 @@ export interface EnvelopeTrace {
   segments: { label: string; start_s: number; end_s: number }[];
 }
 
+/** How one channel was normalized: the reference and noise levels actually used. */
+export interface ReferenceValue {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  /** Normalization method (mve, rve, task-peak, none). */
+  method: string;
+  /** Reference amplitude after noise correction, µV; null when missing or not used. */
+  reference_uv: number | null;
+  noise_uv: number | null;
+  /** With RVE and a %MVE gap threshold: the worker's MVE, µV. */
+  mve_uv: number | null;
+  spans: { file: string; start_s: number; end_s: number; annotation: string | null }[];
+}
+
 export interface StudyResults {
   format: 'shiftload-results/1';
   tool: { name: 'shiftload'; version: string };
   title: string;
+  /** Reference and noise levels per worker × recording × channel. */
+  references?: ReferenceValue[];
   /** Effective settings, every default filled in. */
   settings: Record<string, unknown>;
   inputs: { file: string; sha256: string; duration_s: number }[];
@@ -96,6 +120,68 @@ export interface StudyResults {
   /** APDF curves: for each row key, the envelope value at every percent 0…100. */
   apdf: { worker: string; condition: string; muscle: string; segment: string; unit: LoadUnit; levels: number[] }[];
   findings: Finding[];
+  /** Condition comparisons across workers (lib/study/compare-conditions.ts); absent when not run. */
+  comparisons?: Comparison[];
+}
+
+/** One worker's values in a condition comparison (null where the worker has no value). */
+export interface ComparisonWorker {
+  worker: string;
+  a: number | null;
+  b: number | null;
+  /** b − a for paired comparisons; null when unpaired or a value is missing. */
+  difference: number | null;
+}
+
+/** One segment × muscle × measure comparison of condition b against condition a across workers. */
+export interface Comparison {
+  segment: string;
+  muscle: string;
+  /** Measure key of ResultRow: p10, p50, p90, gaps_per_min, rest_pct, … */
+  measure: string;
+  /** Unit of the measure and of the differences: %MVE/%RVE/… for percentiles, 'gaps/min', '% time', 's'. */
+  unit: string;
+  /** Normalization unit of the rows compared (comparisons never mix them). */
+  normalization: LoadUnit;
+  condition_a: string;
+  condition_b: string;
+  /** True when workers were matched by id (only workers with both conditions are used). */
+  paired: boolean;
+  /** Number of pairs (paired) or n_a + n_b (unpaired). */
+  n: number;
+  n_a: number;
+  n_b: number;
+  per_worker: ComparisonWorker[];
+  /** Paired only: workers left out because they lack one of the two conditions. */
+  excluded_workers: string[];
+  median_a: number | null;
+  median_b: number | null;
+  /** Paired: median of b − a; unpaired: median(b) − median(a). */
+  median_difference: number | null;
+  /** Paired: mean of b − a; unpaired: mean(b) − mean(a). */
+  mean_difference: number | null;
+  /** Bootstrap percentile interval of median_difference; null when descriptive_only. */
+  ci_low: number | null;
+  ci_high: number | null;
+  /** Confidence level as a fraction, e.g. 0.95. */
+  ci_level: number;
+  /** How the interval was made (resamples, seed); null when descriptive_only. */
+  ci_method: string | null;
+  /** Two-sided p-value; null when descriptive_only. */
+  p_value: number | null;
+  /** Test name with its p-value method, or 'none (descriptive only)'. */
+  test: string;
+  /** Matched-pairs rank-biserial r (paired) or Cliff's delta (unpaired), −1…1; positive = higher in b. */
+  effect_size: number | null;
+  effect_size_name: string;
+  /** Paired only: number of workers with b < a, b > a, b = a. */
+  lower_in: number | null;
+  higher_in: number | null;
+  unchanged_in: number | null;
+  /** True when fewer than 5 workers per condition (pairs < 5, or n_a or n_b < 5). */
+  descriptive_only: boolean;
+  /** One plain-language sentence that never overclaims. */
+  statement: string;
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { PDFDocument } from 'pdf-lib';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { layoutResults, renderReport } from '../../lib/report/render-report.js';
-import type { StudyResults } from '../../lib/study/results.js';
+import type { Comparison, StudyResults } from '../../lib/study/results.js';
 import { inventedStudy } from './fixtures/invented-study.js';
 import { pdfTextRuns } from './support/pdf-text.js';
 
@@ -73,8 +73,10 @@ describe('renderReport(results)', () => {
 
   it('renderReport(results) generates the methods text from results.settings', () => {
     const all = runs.flat().join(' ');
-    expect(all).toContain('band-pass filter (Butterworth, order 4, 20–450 Hz, applied forward and backward');
+    expect(all).toContain('mains notch at 50 Hz; band-pass filter (Butterworth, order 4, 20–450 Hz, applied forward and backward');
     expect(all).toContain('RMS envelope over a 0.1 s moving window, evaluated at 20 Hz');
+    expect(all).toContain('the highest 0.5 s moving RMS across the maximal reference contractions');
+    expect(all).toContain(texts.headings.referenceValues);
     expect(all).toContain('Hyndman and Fan type 7');
     expect(all).toContain('below 0.5 %MVE lasting at least 0.2 s');
     expect(all).toContain('Maximal contractions can be painful or unsafe');
@@ -116,16 +118,21 @@ describe('renderReport(results)', () => {
   });
 
   it('renderReport(results with comparisons) adds the comparison page with the statements', async () => {
-    const r = inventedStudy() as StudyResults & { comparisons: unknown[] };
+    const r = inventedStudy();
     const rs = r.rows.filter((x) => x.muscle === 'right upper trapezius' && x.segment === 'packing');
-    const per_worker = ['W01', 'W02', 'W03', 'W04', 'W05', 'W06'].map((w) => ({ worker: w,
-      a: rs.find((x) => x.worker === w && x.condition === 'bench-fixed')!.p50, b: rs.find((x) => x.worker === w && x.condition === 'bench-adjustable')!.p50 }));
-    r.comparisons = [{ segment: 'packing', muscle: 'right upper trapezius', measure: 'median load', unit: '%MVE', condition_a: 'bench-fixed', condition_b: 'bench-adjustable',
-      paired: true, n: 6, median_difference: -2.1, ci_low: -3.4, ci_high: -0.8, p_value: 0.031, statement: 'Invented statement: lower with the adjustable bench.', descriptive_only: false, per_worker }];
+    const per_worker = ['W01', 'W02', 'W03', 'W04', 'W05', 'W06'].map((w) => {
+      const a = rs.find((x) => x.worker === w && x.condition === 'bench-fixed')!.p50, b = rs.find((x) => x.worker === w && x.condition === 'bench-adjustable')!.p50;
+      return { worker: w, a, b, difference: a !== null && b !== null ? b - a : null };
+    });
+    // an invented comparison with the fields of lib/study/results.ts Comparison that the report reads
+    r.comparisons = [{ segment: 'packing', muscle: 'right upper trapezius', measure: 'p50', unit: '%MVE', condition_a: 'bench-fixed', condition_b: 'bench-adjustable',
+      paired: true, n: 6, median_difference: -2.1, ci_low: -3.4, ci_high: -0.8, p_value: 0.031, statement: 'Invented statement: lower with the adjustable bench.',
+      descriptive_only: false, per_worker }] as unknown as Comparison[];
     const rr = await pdfTextRuns(await renderReport(r));
     const i = rr.findIndex((p) => p.includes(texts.headings.comparisons));
     expect(i).toBeGreaterThan(0);
     expect(rr[i].join(' ')).toContain('Invented statement: lower with the adjustable bench.');
     expect(rr[i]).toContain('−3.4 to −0.80'); // 2 decimals below 1 (the report's number rule)
+    expect(rr[i]).toContain('median load'); // measure key p50 printed by name
   });
 });

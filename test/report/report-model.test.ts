@@ -26,7 +26,7 @@ describe('buildReportModel(results)', () => {
 
   it('buildReportModel cites only references whose methods are used (no noise correction → no noise reference)', () => {
     const r = inventedStudy();
-    (r.settings.noise_correction as Record<string, unknown>).enabled = false;
+    r.settings.noise_correction = false;
     const refs = m2refs(buildReportModel(r));
     expect(refs.some((x) => x.includes('IEEE Trans Neural Syst Rehabil Eng'))).toBe(false);
     expect(refs.some((x) => x.startsWith('Jonsson B. 1982'))).toBe(true);

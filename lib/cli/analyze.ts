@@ -1,0 +1,98 @@
+// `shiftload analyze JOB [--out DIR]`: the whole study job — job file in, results.json,
+// segments.csv and report.pdf out.
+import { basename, dirname, extname, join, relative } from 'node:path';
+import type { CommandModule } from 'yargs';
+import { loadJob } from '../job/load-job.js';
+import type { Study } from '../job/study-types.js';
+import { compareConditions } from '../study/compare-conditions.js';
+import type { StudyResults } from '../study/results.js';
+import { runStudy } from '../study/run-study.js';
+import { OUTPUT_NAMES, prepareOutputFolder, writeStudyOutputs } from '../study/write-study-outputs.js';
+import type { CliIO, WithIO } from './cli-io.js';
+import { ProgressBar } from './progress-bar.js';
+
+export interface AnalyzeOptions {
+  out?: string;
+  force?: boolean;
+  report?: boolean;
+  svg?: boolean;
+}
+
+export interface AnalyzeOutcome {
+  study: Study;
+  results: StudyResults;
+  outDir: string;
+  files: string[];
+}
+
+/** Default output folder: beside the job file, named after it. */
+export function defaultOutDir(jobPath: string): string {
+  return join(dirname(jobPath), `${basename(jobPath, extname(jobPath))}-results`);
+}
+
+/** Every file a study reads (none may be overwritten by an output). */
+function studyInputs(study: Study): string[] {
+  const files = [study.jobFile];
+  for (const w of study.workers) for (const r of w.recordings) {
+    files.push(r.file);
+    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.push(sp.file);
+  }
+  return files;
+}
+
+/** Run a study job and write its outputs (library form of the command; `demo` uses it too). */
+export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: CliIO): Promise<AnalyzeOutcome> {
+  const study = await loadJob(jobPath);
+  const outDir = options.out ?? defaultOutDir(jobPath);
+  prepareOutputFolder(outDir, { force: options.force ?? false, inputs: studyInputs(study) });
+  const bar = new ProgressBar(io, 'analyzing');
+  let results: StudyResults;
+  try {
+    results = await runStudy(study, { onProgress: (d, t, note) => bar.update(d, t, note) });
+  } finally {
+    bar.stop();
+  }
+  results.comparisons = compareConditions(results.rows, {});
+  const written = writeStudyOutputs(outDir, results);
+  const files = [written.results, written.rows];
+  if (options.report !== false) {
+    const { writeReport } = await import('../report/render-report.js');
+    const pdf = join(outDir, OUTPUT_NAMES.report);
+    await writeReport(results, pdf, { svgDir: options.svg ? join(outDir, 'charts') : undefined });
+    files.push(pdf);
+  }
+  return { study, results, outDir, files };
+}
+
+/** A short plain summary printed after the analysis. */
+export function summaryText(outcome: AnalyzeOutcome): string {
+  const { results } = outcome;
+  const workers = new Set(results.rows.map((r) => r.worker)).size;
+  const errors = results.findings.filter((f) => f.severity === 'error').length;
+  const warnings = results.findings.filter((f) => f.severity === 'warning').length;
+  const lines = [
+    `${results.title}: ${workers} worker(s), ${results.rows.length} rows (worker × condition × muscle × segment)`,
+    `findings: ${errors} error(s), ${warnings} warning(s), ${results.findings.length - errors - warnings} note(s)`,
+    ...outcome.files.map((f) => `wrote ${relative(process.cwd(), f) || f}`),
+  ];
+  return lines.join('\n') + '\n';
+}
+
+type AnalyzeArgs = WithIO & { job: string; out?: string; force: boolean; report: boolean; svg: boolean };
+
+export const analyzeCommand: CommandModule<object, AnalyzeArgs> = {
+  command: 'analyze <job>',
+  describe: 'Run a study job: envelopes, normalization, per-segment APDF and rest, results and report',
+  builder: (y) => y
+    .positional('job', { type: 'string', demandOption: true, describe: 'job file (YAML, see `shiftload init`)' })
+    .option('out', { alias: 'o', type: 'string', describe: 'output folder (default: <job>-results beside the job file)' })
+    .option('force', { type: 'boolean', default: false, describe: 'reuse an output folder that already holds files' })
+    .option('report', { type: 'boolean', default: true, describe: 'write report.pdf (--no-report to skip)' })
+    .option('svg', { type: 'boolean', default: false, describe: 'also write every chart as SVG into <out>/charts' })
+    .example('$0 analyze study/job.yaml', 'analyze and write study/job-results/{results.json,segments.csv,report.pdf}')
+    .example('$0 analyze job.yaml -o out --force --no-report', 'results only, into an existing folder') as never,
+  handler: async (argv) => {
+    const outcome = await analyzeJob(argv.job, { out: argv.out, force: argv.force, report: argv.report, svg: argv.svg }, argv.io);
+    argv.io.out(summaryText(outcome));
+  },
+};

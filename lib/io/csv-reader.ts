@@ -1,0 +1,304 @@
+// Streaming reader for CSV/TSV exports: a header row of channel names (optionally `name [unit]`),
+// then one row per sample. Two passes over the bytes, each in blocks with bounded memory: the
+// header phase validates every cell, counts rows and empty cells and finds the sampling rate (time
+// column or option); `read()` parses the rows again into chunk buffers.
+// Conventions (common practice, no single source): delimiter ',' ';' or tab, detected from the
+// header row; with ';' or tab a ',' in a number is a decimal comma; surrounding double quotes are
+// removed from cells (quoted delimiters are not supported); blank lines are skipped.
+import type { FileHandle } from 'node:fs/promises';
+import { secondsToSamples } from '../dsp/seconds-to-samples.js';
+import { InputError, UsageError } from '../errors.js';
+import { ioMsg, msg } from '../messages.js';
+import { lineBatches } from './line-batches.js';
+import { IO_DEFAULTS, type OpenOptions } from './open-options.js';
+import { parseDecimal } from './parse-decimal.js';
+import type { ReadOptions, Recording, RecordingInfo, SignalChunk, SignalInfo } from './recording.js';
+
+const TIME_NAMES = new Set(['time', 'time_s', 't']);
+/** Steps kept to find the median time step (the rest are only checked against it). */
+const MEDIAN_STEPS = 10001;
+
+/** Layout found in the header row. */
+interface CsvLayout {
+  delimiter: number;
+  decimalComma: boolean;
+  /** Column of the time stamps, or -1. */
+  timeColumn: number;
+  /** Column index of each data signal. */
+  columns: number[];
+  names: string[];
+  units: string[];
+  ncols: number;
+  headerLine: number;
+}
+
+/**
+ * Open a CSV/TSV recording already opened as `fh` (the reader takes ownership and closes it).
+ * SignalInfo.nan_count gives the number of empty (or "NaN") cells per signal, read as NaN;
+ * physical_min/max are the smallest/largest finite values; digital limits are NaN.
+ * @throws InputError naming file:line and column for a text cell, a ragged row, time stamps that
+ *   do not increase or are uneven by more than 1 % of the median step
+ */
+export async function openCsv(file: string, fh: FileHandle, _size: number, options: OpenOptions = {}): Promise<Recording> {
+  const blockBytes = options.chunk_bytes ?? IO_DEFAULTS.chunk_bytes;
+  let layout: CsvLayout | null = null;
+  let rows = 0;
+  let nan: Float64Array = new Float64Array(0);
+  let mins: Float64Array = new Float64Array(0);
+  let maxs: Float64Array = new Float64Array(0);
+  const steps: number[] = [];
+  const stepLines: number[] = [];
+  let med = NaN; // median step, fixed once MEDIAN_STEPS steps are known
+  let tFirst = NaN;
+  let tPrev = NaN;
+  let rate: number;
+  try {
+    if (options.rate_hz !== undefined && !(options.rate_hz > 0)) throw new UsageError(msg.badOption('rate', 'a rate in Hz > 0', String(options.rate_hz)));
+    let lastLine = 0;
+    for await (const b of lineBatches(fh, blockBytes)) {
+      for (let k = 0; k < b.count; k++) {
+        const s = b.start[k];
+        const e = b.end[k];
+        const line = b.firstLine + k;
+        lastLine = line;
+        if (isBlank(b.buf, s, e)) continue;
+        if (layout === null) {
+          layout = parseHeader(file, b.buf.toString('utf8', s, e), line, options.unit ?? IO_DEFAULTS.csv_unit);
+          nan = new Float64Array(layout.columns.length);
+          mins = new Float64Array(layout.columns.length).fill(Infinity);
+          maxs = new Float64Array(layout.columns.length).fill(-Infinity);
+          continue;
+        }
+        const t = scanRow(file, b.buf, s, e, line, layout, nan, mins, maxs);
+        if (layout.timeColumn >= 0) {
+          if (Number.isNaN(t)) throw new InputError(ioMsg.csvTimeMissing(file, line), { file, where: `line ${line}` });
+          if (rows === 0) tFirst = t;
+          else {
+            const dt = t - tPrev;
+            if (!(dt > 0)) throw new InputError(ioMsg.csvTimeOrder(file, line, tPrev, t), { file, where: `line ${line}` });
+            if (Number.isNaN(med)) {
+              steps.push(dt);
+              stepLines.push(line);
+              if (steps.length === MEDIAN_STEPS) {
+                med = median(steps);
+                steps.forEach((d, i) => checkStep(file, stepLines[i], d, med));
+              }
+            } else checkStep(file, line, dt, med);
+          }
+          tPrev = t;
+        }
+        rows++;
+      }
+    }
+    if (layout === null) throw new InputError(ioMsg.csvNoHeader(file), { file, where: 'line 1' });
+    if (rows === 0) throw new InputError(ioMsg.csvNoData(file), { file, where: `line ${lastLine}` });
+    if (layout.timeColumn >= 0 && rows >= 2) {
+      if (Number.isNaN(med)) {
+        med = median(steps);
+        steps.forEach((d, i) => checkStep(file, stepLines[i], d, med));
+      }
+      rate = snapRate(1 / med, (rows - 1) / (tPrev - tFirst));
+    } else if (options.rate_hz !== undefined) {
+      rate = options.rate_hz;
+    } else {
+      throw new InputError(ioMsg.csvNoRate(file), { file });
+    }
+  } catch (e) {
+    await fh.close();
+    throw e;
+  }
+  const L: CsvLayout = layout;
+  const signals: SignalInfo[] = L.names.map((name, j) => ({
+    index: j,
+    label: name,
+    unit: L.units[j],
+    rate_hz: rate,
+    physical_min: Number.isFinite(mins[j]) ? mins[j] : 0,
+    physical_max: Number.isFinite(maxs[j]) ? maxs[j] : 0,
+    digital_min: NaN,
+    digital_max: NaN,
+    prefilter: '',
+    transducer: '',
+    samples: rows,
+    nan_count: nan[j],
+  }));
+  const info: RecordingInfo = {
+    file,
+    format: 'CSV',
+    start: null,
+    duration_s: rows / rate,
+    signals,
+    annotations: [],
+    record_duration_s: null,
+  };
+  return {
+    info,
+    read: (ro: ReadOptions) => readRows(file, fh, L, info, blockBytes, ro),
+    close: () => fh.close(),
+  };
+}
+
+function checkStep(file: string, line: number, dt: number, med: number): void {
+  if (Math.abs(dt - med) > IO_DEFAULTS.csv_time_tolerance * med) throw new InputError(ioMsg.csvTimeUneven(file, line, dt, med), { file, where: `line ${line}` });
+}
+
+/** 1/median step, replaced by the whole-file mean rate when they agree, and snapped to an integer within 1e-6. */
+function snapRate(fromMedian: number, fromMean: number): number {
+  let r = Math.abs(fromMean - fromMedian) <= 1e-3 * fromMedian ? fromMean : fromMedian;
+  const near = Math.round(r);
+  if (Math.abs(r - near) <= 1e-6 * r) r = near;
+  return r;
+}
+
+function median(v: number[]): number {
+  const s = v.slice().sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}
+
+function isBlank(buf: Buffer, s: number, e: number): boolean {
+  for (let i = s; i < e; i++) if (buf[i] !== 0x20 && buf[i] !== 0x09) return false;
+  return true;
+}
+
+function unquote(s: string): string {
+  const t = s.trim();
+  return t.length >= 2 && t.startsWith('"') && t.endsWith('"') ? t.slice(1, -1).trim() : t;
+}
+
+function parseHeader(file: string, text: string, line: number, defaultUnit: string): CsvLayout {
+  const count = (ch: string) => text.split(ch).length - 1;
+  const tabs = count('\t');
+  const semis = count(';');
+  const commas = count(',');
+  const delimiter = tabs > 0 && tabs >= semis && tabs >= commas ? '\t' : semis > 0 && semis >= commas ? ';' : ',';
+  const cells = text.split(delimiter).map(unquote);
+  let timeColumn = -1;
+  const columns: number[] = [];
+  const names: string[] = [];
+  const units: string[] = [];
+  cells.forEach((c, i) => {
+    const m = /^(.*?)\s*\[([^\]]*)\]$/.exec(c);
+    const name = m ? m[1] : c;
+    const unit = m ? m[2].trim() : '';
+    const isTime = timeColumn < 0 && ((m === null && TIME_NAMES.has(name.toLowerCase())) || (name.toLowerCase() === 'time' && unit === 's'));
+    if (isTime) timeColumn = i;
+    else {
+      columns.push(i);
+      names.push(name === '' ? `column ${i + 1}` : name);
+      units.push(unit === '' ? defaultUnit : unit);
+    }
+  });
+  if (columns.length === 0 || cells.every((c) => /^[+-]?[\d.,eE]+$/.test(c))) throw new InputError(ioMsg.csvNoHeader(file), { file, where: `line ${line}` });
+  return { delimiter: delimiter.charCodeAt(0), decimalComma: delimiter !== ',', timeColumn, columns, names, units, ncols: cells.length, headerLine: line };
+}
+
+/** Cell boundaries of one row into `cs`/`ce`; returns the number of cells. */
+function splitRow(buf: Buffer, s: number, e: number, delim: number, cs: Int32Array, ce: Int32Array): number {
+  let n = 0;
+  let a = s;
+  for (let i = s; i <= e; i++) {
+    if (i === e || buf[i] === delim) {
+      if (n < cs.length) {
+        let x = a;
+        let y = i;
+        while (x < y && (buf[x] === 0x20 || buf[x] === 0x09)) x++;
+        while (y > x && (buf[y - 1] === 0x20 || buf[y - 1] === 0x09)) y--;
+        if (y - x >= 2 && buf[x] === 0x22 && buf[y - 1] === 0x22) { x++; y--; }
+        cs[n] = x;
+        ce[n] = y;
+      }
+      n++;
+      a = i + 1;
+    }
+  }
+  return n;
+}
+
+/** True for a cell meaning "no value": empty, NaN, nan. */
+function isMissing(buf: Buffer, a: number, b: number): boolean {
+  if (a === b) return true;
+  return b - a === 3 && (buf[a] | 0x20) === 0x6e && (buf[a + 1] | 0x20) === 0x61 && (buf[a + 2] | 0x20) === 0x6e;
+}
+
+let cellStart = new Int32Array(64);
+let cellEnd = new Int32Array(64);
+
+function ensureCells(n: number): void {
+  if (cellStart.length < n + 1) {
+    cellStart = new Int32Array(n + 1);
+    cellEnd = new Int32Array(n + 1);
+  }
+}
+
+/** Pass 1: validate one row, count missing cells, track ranges; returns the time stamp (or NaN). */
+function scanRow(file: string, buf: Buffer, s: number, e: number, line: number, L: CsvLayout, nan: Float64Array, mins: Float64Array, maxs: Float64Array): number {
+  ensureCells(L.ncols);
+  const n = splitRow(buf, s, e, L.delimiter, cellStart, cellEnd);
+  if (n !== L.ncols) throw new InputError(ioMsg.csvRagged(file, line, n, L.ncols), { file, where: `line ${line}` });
+  for (let j = 0; j < L.columns.length; j++) {
+    const c = L.columns[j];
+    const a = cellStart[c];
+    const b = cellEnd[c];
+    if (isMissing(buf, a, b)) { nan[j]++; continue; }
+    const v = parseDecimal(buf, a, b, L.decimalComma);
+    if (Number.isNaN(v)) throw new InputError(ioMsg.csvNotNumber(file, line, L.names[j], buf.toString('utf8', a, b)), { file, where: `line ${line}` });
+    if (v < mins[j]) mins[j] = v;
+    if (v > maxs[j]) maxs[j] = v;
+  }
+  if (L.timeColumn < 0) return NaN;
+  const a = cellStart[L.timeColumn];
+  const b = cellEnd[L.timeColumn];
+  if (isMissing(buf, a, b)) return NaN;
+  const t = parseDecimal(buf, a, b, L.decimalComma);
+  if (Number.isNaN(t)) throw new InputError(ioMsg.csvNotNumber(file, line, 'time', buf.toString('utf8', a, b)), { file, where: `line ${line}` });
+  return t;
+}
+
+async function* readRows(file: string, fh: FileHandle, L: CsvLayout, info: RecordingInfo, blockBytes: number, ro: ReadOptions): AsyncGenerator<SignalChunk> {
+  const n = info.signals.length;
+  const sel = ro.signals.map((i) => {
+    if (!Number.isInteger(i) || i < 0 || i >= n) throw new InputError(ioMsg.unknownSignal(file, i, n), { file });
+    return L.columns[i];
+  });
+  const m = sel.length;
+  const rate = info.signals[0].rate_hz;
+  const rows = info.signals[0].samples;
+  const s0 = Math.max(0, Math.min(rows, secondsToSamples(ro.start_s ?? 0, rate)));
+  const e0 = Math.max(0, Math.min(rows, secondsToSamples(ro.end_s ?? info.duration_s, rate)));
+  if (e0 <= s0) return;
+  const R = Math.max(1, Math.floor(blockBytes / (8 * Math.max(1, m))));
+  const out = sel.map(() => new Float64Array(R));
+  const zeros = new Int32Array(m);
+  ensureCells(L.ncols);
+  let header = true;
+  let r = -1; // data row index
+  let fill = 0;
+  let chunkRow = s0;
+  let done = false;
+  for await (const b of lineBatches(fh, blockBytes)) {
+    for (let k = 0; k < b.count; k++) {
+      const s = b.start[k];
+      const e = b.end[k];
+      if (isBlank(b.buf, s, e)) continue;
+      if (header) { header = false; continue; }
+      r++;
+      if (r < s0) continue;
+      if (r >= e0) { done = true; break; }
+      splitRow(b.buf, s, e, L.delimiter, cellStart, cellEnd);
+      for (let j = 0; j < m; j++) {
+        const a = cellStart[sel[j]];
+        const z = cellEnd[sel[j]];
+        out[j][fill] = isMissing(b.buf, a, z) ? NaN : parseDecimal(b.buf, a, z, L.decimalComma);
+      }
+      fill++;
+      if (fill === R) {
+        yield { start_s: chunkRow / rate, gap_before: false, data: out.map((o) => o.subarray(0, fill)), clipped_low: zeros, clipped_high: zeros };
+        chunkRow += fill;
+        fill = 0;
+      }
+    }
+    if (done) break;
+  }
+  if (fill > 0) yield { start_s: chunkRow / rate, gap_before: false, data: out.map((o) => o.subarray(0, fill)), clipped_low: zeros, clipped_high: zeros };
+}

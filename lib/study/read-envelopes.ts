@@ -1,0 +1,198 @@
+// One streaming pass over a span of a recording: each requested channel goes through the same
+// filter (BandFilter: optional notch, zero-phase Butterworth band-pass) and one or two moving-RMS
+// envelopes. Field data, reference contractions and rest recordings all use this function, so the
+// references are processed exactly like the field data (DESIGN.md).
+import { BandFilter, type BandFilterSettings } from '../dsp/band-filter.js';
+import { RmsEnvelope } from '../dsp/rms-envelope.js';
+import { secondsToSamples } from '../dsp/seconds-to-samples.js';
+import { openRecording } from '../io/open-recording.js';
+import type { OpenOptions } from '../io/open-options.js';
+import { GrowableFloat64 } from './growable-float64.js';
+
+/** The filter of the analysis, as settings (the sampling rate comes from each channel). */
+export interface FilterSpec {
+  band_hz: readonly [number, number];
+  order: number;
+  mains_hz: 50 | 60 | null;
+  mains_harmonics: number;
+  mains_q: number;
+}
+
+/** A moving-RMS evaluation: window length and rate. */
+export interface EnvelopeSpec {
+  window_s: number;
+  rate_hz: number;
+}
+
+/**
+ * An observer of one channel during the streaming pass (quality screening, spectral epochs).
+ * It sees every raw chunk (physical values, before filtering) and every filtered chunk (after the
+ * notch and band-pass, µV) in time order; arrays are only valid during the call.
+ */
+export interface ChannelTap {
+  /** Raw samples; `first` is the index of x[0] within the span read (samples of this channel). */
+  raw?(x: Float64Array, first: number): void;
+  /** Filtered samples, in order, contiguous within one continuous piece. */
+  filtered?(y: Float64Array): void;
+  /** A discontinuity (EDF+D): the next piece starts at `offset_s` from the span start. */
+  restart?(offset_s: number): void;
+}
+
+export interface ReadEnvelopesRequest {
+  file: string;
+  /** Signal indices (SignalInfo.index) to read, one envelope set per index. */
+  signals: number[];
+  /** Span, s from the file start; end null = to the end of the file. */
+  start_s: number;
+  end_s: number | null;
+  filter: FilterSpec;
+  /** The main envelope (field data). */
+  envelope: EnvelopeSpec;
+  /** Optional second envelope over the same filtered signal (e.g. a 1-s window for MVE). */
+  second?: EnvelopeSpec;
+  /** Reader options (chunk size, CSV rate). */
+  open?: OpenOptions;
+  /** Observers per requested signal (same order as `signals`), e.g. quality screening. */
+  taps?: (ChannelTap | null)[];
+  /** Called after each chunk with the seconds of the span read so far. */
+  onProgress?: (doneS: number) => void;
+}
+
+export interface ChannelEnvelopes {
+  /** Main envelope, µV; sample k at start_s + k / rate_hz. NaN = no data or NaN input. */
+  envelope: Float64Array;
+  /** Second envelope, µV (when requested). */
+  second: Float64Array | null;
+  /** Filter settings resolved for this channel's sampling rate. */
+  filter: BandFilterSettings;
+  rate_hz: number;
+  /** Samples at the digital limits within the span. */
+  clipped_low: number;
+  clipped_high: number;
+  samples: number;
+  /** Sampling rate of the signal, Hz. */
+  fs: number;
+}
+
+export interface ReadEnvelopesResult {
+  channels: ChannelEnvelopes[];
+  /** Span actually read, s from the file start. */
+  start_s: number;
+  end_s: number;
+  /** Number of discontinuities (EDF+D) met; each restarts the filters and leaves NaN between. */
+  discontinuities: number;
+}
+
+class ChannelState {
+  filter: BandFilter;
+  main: RmsEnvelope;
+  second: RmsEnvelope | null;
+  readonly mainOut = new GrowableFloat64();
+  readonly secondOut: GrowableFloat64 | null;
+  clippedLow = 0;
+  clippedHigh = 0;
+  samples = 0;
+
+  constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest, private readonly tap: ChannelTap | null) {
+    this.secondOut = req.second ? new GrowableFloat64() : null;
+    this.filter = this.newFilter();
+    this.main = new RmsEnvelope({ fs, window_s: req.envelope.window_s, rate_hz: req.envelope.rate_hz });
+    this.second = req.second ? new RmsEnvelope({ fs, window_s: req.second.window_s, rate_hz: req.second.rate_hz }) : null;
+  }
+
+  private newFilter(): BandFilter {
+    const f = this.req.filter;
+    return new BandFilter({ fs: this.fs, band_hz: f.band_hz, order: f.order, mains_hz: f.mains_hz, mains_harmonics: f.mains_harmonics, mains_q: f.mains_q });
+  }
+
+  push(x: Float64Array): void {
+    if (this.tap?.raw) this.tap.raw(x, this.samples);
+    this.samples += x.length;
+    const y = this.filter.push(x);
+    if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
+    this.mainOut.append(this.main.push(y));
+    if (this.second) this.secondOut!.append(this.second.push(y));
+  }
+
+  /** End the current continuous piece. */
+  flush(): void {
+    const y = this.filter.flush();
+    if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
+    this.mainOut.append(this.main.push(y));
+    this.mainOut.append(this.main.flush());
+    if (this.second) {
+      this.secondOut!.append(this.second.push(y));
+      this.secondOut!.append(this.second.flush());
+    }
+  }
+
+  /** Start a new piece whose first sample lies at `offset_s` from the span start: pad NaN up to it. */
+  restartAt(offset_s: number): void {
+    this.flush();
+    const r = this.req;
+    this.mainOut.fill(NaN, secondsToSamples(offset_s, r.envelope.rate_hz) - this.mainOut.length);
+    if (r.second) this.secondOut!.fill(NaN, secondsToSamples(offset_s, r.second.rate_hz) - this.secondOut!.length);
+    this.tap?.restart?.(offset_s);
+    this.filter = this.newFilter();
+    this.main = new RmsEnvelope({ fs: this.fs, window_s: r.envelope.window_s, rate_hz: r.envelope.rate_hz });
+    this.second = r.second ? new RmsEnvelope({ fs: this.fs, window_s: r.second.window_s, rate_hz: r.second.rate_hz }) : null;
+  }
+}
+
+/**
+ * Read a span of a recording and return, per requested signal, its RMS envelope(s) in µV.
+ * Envelope sample k lies at start_s + k / rate_hz; the whole span is covered (for EDF+D the time
+ * between records is NaN and the filters restart after each discontinuity).
+ * @throws InputError for unreadable files (from the readers); UsageError for filter settings
+ *   that do not fit a channel's sampling rate
+ */
+export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnvelopesResult> {
+  const rec = await openRecording(req.file, req.open);
+  try {
+    const info = rec.info;
+    const start_s = Math.max(0, req.start_s);
+    const fileEnd = info.end_s ?? info.duration_s; // EDF+D: clock time of the last record's end
+    const end_s = req.end_s === null ? fileEnd : Math.min(fileEnd, req.end_s);
+    const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null));
+    let discontinuities = 0;
+    let first = true;
+    for await (const chunk of rec.read({ signals: req.signals, start_s, end_s })) {
+      if (chunk.gap_before && !first) {
+        discontinuities++;
+        for (const s of states) s.restartAt(chunk.start_s - start_s);
+      }
+      first = false;
+      for (let c = 0; c < states.length; c++) {
+        const s = states[c]!;
+        const x = chunk.data[c]!;
+        s.push(x);
+        s.clippedLow += chunk.clipped_low[c]!;
+        s.clippedHigh += chunk.clipped_high[c]!;
+      }
+      if (req.onProgress) {
+        const fs0 = states[0]!.fs;
+        req.onProgress(chunk.start_s - start_s + chunk.data[0]!.length / fs0);
+      }
+    }
+    for (const s of states) s.flush();
+    // Pad to the full span so sample k always means start_s + k / rate.
+    const nMain = secondsToSamples(end_s - start_s, req.envelope.rate_hz);
+    const channels = states.map((s) => {
+      if (s.mainOut.length < nMain) s.mainOut.fill(NaN, nMain - s.mainOut.length);
+      const env = s.mainOut.toArray().subarray(0, Math.max(nMain, 0));
+      let second: Float64Array | null = null;
+      if (req.second) {
+        const n2 = secondsToSamples(end_s - start_s, req.second.rate_hz);
+        if (s.secondOut!.length < n2) s.secondOut!.fill(NaN, n2 - s.secondOut!.length);
+        second = s.secondOut!.toArray().subarray(0, n2);
+      }
+      return {
+        envelope: env, second, filter: s.filter.settings, rate_hz: req.envelope.rate_hz,
+        clipped_low: s.clippedLow, clipped_high: s.clippedHigh, samples: s.samples, fs: s.fs,
+      };
+    });
+    return { channels, start_s, end_s, discontinuities };
+  } finally {
+    await rec.close();
+  }
+}
