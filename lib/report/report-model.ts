@@ -88,7 +88,7 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
   const cite = (...keys: string[]) => keys.forEach((k) => usedRefs.add(k));
   const rowsOf = (muscle: string, segment: string, condition: string) =>
     rows.filter((r) => r.muscle === muscle && r.segment === segment && r.condition === condition);
-  const gapMin = settingAt(results.settings, ['gaps.min_duration_s', 'gap.min_duration_s', 'rest.gap_min_s']);
+  const gapMin = settingAt(results.settings, ['gap_min_s', 'gaps.min_duration_s', 'gap.min_duration_s']);
   const gapThreshold = rows.length ? rows[0].gap_threshold : undefined;
   const sameThreshold = rows.every((r) => r.gap_threshold === gapThreshold && r.unit === rows[0].unit);
 
@@ -310,23 +310,32 @@ function traceChart(tr: EnvelopeTrace, texts: ReportTexts, segments: string[]): 
     { time: L.time, load: L.load, mean: `${step} s mean`, max: `${step} s maximum` }, segments);
 }
 
+/** Measures whose comparisons get statements and paired charts (the page-1 figures); the table lists all. */
+const PRIMARY_MEASURES = ['p50', 'gaps_per_min'];
+
 function comparisonBlocks(cmp: ReportComparison[], texts: ReportTexts): Block[] {
   const { t } = texts;
   const L = t.labels as Record<string, string>;
   const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.comparisons }, { type: 'paragraph', text: t.comparisonsIntro, small: true }];
+  const primary = cmp.some((c) => PRIMARY_MEASURES.includes(c.measure)) ? cmp.filter((c) => PRIMARY_MEASURES.includes(c.measure)) : cmp;
+  for (const m of ordered(primary.map((c) => c.muscle))) {
+    const mine = primary.filter((c) => c.muscle === m);
+    blocks.push({ type: 'heading', level: 2, text: cap(m) });
+    blocks.push({ type: 'bullets', small: true, items: mine.map((c) => `${cap(c.segment)}, ${measureName(c.measure, texts)}: ${c.statement}${c.descriptive_only ? ' ' + t.comparisonDescriptive : ''}`) });
+    const charts: ChartModel[] = [];
+    mine.forEach((c) => {
+      if (!c.per_worker.length) return;
+      charts.push(pairedChart(`paired-${slug(c.muscle)}-${slug(c.segment)}-${slug(c.measure)}`, c.per_worker, c.condition_a, c.condition_b, `${measureName(c.measure, texts)} (${c.unit})`,
+        fillRequired(t.captions.paired, { measure: cap(measureName(c.measure, texts)), muscle: c.muscle, segment: c.segment, unit: c.unit, a: c.condition_a, b: c.condition_b }), 160, 150));
+    });
+    for (let i = 0; i < charts.length; i += 3) blocks.push({ type: 'charts', charts: charts.slice(i, i + 3) });
+  }
+  blocks.push({ type: 'heading', level: 2, text: t.headings.comparisonTable });
   blocks.push({ type: 'table', small: true, columns: [
-    { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.9 }, { label: L.measure, width: 0.9 }, { label: `${L.condition} A → B`, width: 1.4 },
+    { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.9 }, { label: L.measure, width: 1.0 }, { label: `${L.condition} A → B`, width: 1.4 },
     { label: L.n, width: 0.3, align: 'right' }, { label: L.difference, width: 0.9, align: 'right' }, { label: L.ci, width: 1.25, align: 'right' }, { label: L.pValue, width: 0.5, align: 'right' },
   ], rows: cmp.map((c) => [c.muscle, c.segment, measureName(c.measure, texts), `${c.condition_a} → ${c.condition_b}`, String(c.n), `${formatNumber(c.median_difference)} ${c.unit}`,
     c.descriptive_only || c.ci_low === null || c.ci_high === null ? '–' : `${formatNumber(c.ci_low)} to ${formatNumber(c.ci_high)}`, c.p_value === null ? '–' : formatP(c.p_value)]) });
-  const charts: ChartModel[] = [];
-  cmp.forEach((c, i) => {
-    if (!c.per_worker.length) return;
-    charts.push(pairedChart(`paired-${i + 1}-${slug(c.muscle)}-${slug(c.segment)}-${slug(c.measure)}`, c.per_worker, c.condition_a, c.condition_b, `${measureName(c.measure, texts)} (${c.unit})`,
-      fillRequired(t.captions.paired, { measure: cap(measureName(c.measure, texts)), muscle: c.muscle, segment: c.segment, unit: c.unit, a: c.condition_a, b: c.condition_b }) + ' ' + c.statement +
-      (c.descriptive_only ? ' ' + t.comparisonDescriptive : '')));
-  });
-  for (let i = 0; i < charts.length; i += 3) blocks.push({ type: 'charts', charts: charts.slice(i, i + 3) });
   return blocks;
 }
 
