@@ -304,10 +304,10 @@ function workerPage(w: string, results: StudyResults, texts: ReportTexts, o: { s
 function traceChart(tr: EnvelopeTrace, texts: ReportTexts, segments: string[]): ChartModel {
   const { t } = texts;
   const L = t.labels as Record<string, string>;
-  const step = formatNumber(tr.step_s);
+  const step = formatSetting(tr.step_s);
   return timelineChart(`timeline-${slug(tr.worker)}-${slug(tr.condition)}-${slug(tr.muscle)}`, tr,
     fillRequired(t.captions.timeline, { muscle: tr.muscle, worker: tr.worker, condition: tr.condition, step, unit: tr.unit }),
-    { time: L.time, load: L.load, mean: `${step} s mean`, max: `${step} s maximum` }, segments);
+    { time: L.time, timeMin: L.timeMin, load: L.load, mean: `${step} s mean`, max: `${step} s maximum` }, segments);
 }
 
 /** Measures whose comparisons get statements and paired charts (the page-1 figures); the table lists all. */

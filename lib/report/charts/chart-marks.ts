@@ -112,6 +112,8 @@ export function chartMarks(chart: ChartModel, measure: Measure): { marks: Mark[]
   for (const l of chart.refLines) {
     const y = r(sy(l.y));
     marks.push({ k: 'path', pts: [r(plot.x), y, r(plot.x + plot.w), y], stroke: MUTED, width: 0.5, dash: l.dash });
+    const lw = measure(l.label, SMALL);
+    marks.push({ ...rect(plot.x + plot.w - 3 - lw, y - 2 - SMALL * 0.85, lw + 2, SMALL * 1.05, [1, 1, 1]) }); // keeps the label readable over curves
     marks.push({ k: 'text', x: r(plot.x + plot.w - 2), y: r(y - 2), text: l.label, size: SMALL, anchor: 'end', color: MUTED });
   }
 

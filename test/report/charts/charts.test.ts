@@ -72,6 +72,15 @@ describe('chartMarks(chart, measure)', () => {
     expect(marks.some((m) => m.k === 'text' && m.text === 'time (h)')).toBe(true);
   });
 
+  it('timelineChart(...) uses minutes for recordings shorter than 2 h and hours otherwise', () => {
+    const labels = { time: 'time (h)', timeMin: 'time (min)', load: 'l', mean: 'm', max: 'x' };
+    const short = { ...study.traces[0], mean: [1, 2, 3], max: [2, 3, 4], step_s: 600, segments: [{ label: 'a', start_s: 0, end_s: 1500 }] };
+    const c = timelineChart('t', short, 'cap', labels, ['a']);
+    expect(c.x.label).toBe('time (min)');
+    expect(c.bands[0]).toMatchObject({ x0: 0, x1: 25 });
+    expect(timelineChart('t', study.traces[0], 'cap', labels, []).x.label).toBe('time (h)'); // the fixture's 3 h recordings
+  });
+
   it('chartMarks breaks a line series at null (excluded time)', () => {
     const tr = { ...study.traces[0], mean: [1, 2, null, 3, 4], max: [2, 3, null, 4, 5], step_s: 60, segments: [] };
     const c = timelineChart('t', tr, 'cap', { time: 't', load: 'l', mean: 'mean', max: 'max' }, []);
