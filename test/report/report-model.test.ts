@@ -50,3 +50,17 @@ function m2refs(m: ReturnType<typeof buildReportModel>): string[] {
   const b = page.blocks.find((x) => x.type === 'bullets');
   return b && b.type === 'bullets' ? b.items : [];
 }
+
+describe('buildReportModel(results with spectra)', () => {
+  it('buildReportModel adds a spectra page with one chart per spectrum and the suggested band as a band', () => {
+    const r = inventedStudy();
+    const freq_hz = Array.from({ length: 101 }, (_, i) => i * 5);
+    r.spectra = [{ worker: 'W01', condition: 'bench-fixed', muscle: 'right upper trapezius', freq_hz, psd: freq_hz.map((f) => Math.exp(-f / 100)), suggested_band_hz: [20, 400] }];
+    const page = buildReportModel(r).pages.find((p) => p.id === 'spectra')!;
+    const charts = page.blocks.flatMap((b) => (b.type === 'charts' ? b.charts : []));
+    expect(charts).toHaveLength(1);
+    expect(charts[0].bands).toEqual([expect.objectContaining({ x0: 20, x1: 400 })]);
+    expect(charts[0].caption).toContain('20–400 Hz');
+    expect(buildReportModel(inventedStudy()).pages.some((p) => p.id === 'spectra')).toBe(false);
+  });
+});
