@@ -7,9 +7,11 @@ import { reportCommand } from './report.js';
 import { versionInfoCommand } from './version-info.js';
 import { analyzeCommand } from './analyze.js';
 import { checkCommand } from './check.js';
+import { demoCommand } from './demo.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
 import { simulateCommand } from './simulate.js';
+import { spectrumCommand } from './spectrum.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const commands: CommandModule<any, any>[] = [
@@ -18,8 +20,10 @@ export const commands: CommandModule<any, any>[] = [
   checkCommand,
   analyzeCommand,
   reportCommand,
+  demoCommand,
   schemaCommand,
   inspectCommand,
   convertCommand,
+  spectrumCommand,
   simulateCommand,
 ];
