@@ -278,6 +278,7 @@ export const reportMsg = {
 export const fatigueMsg = {
   epochTooShort: (epochS: number, fs: number) => `spectral epoch must hold at least 16 samples (epoch_s × fs; fs=${fs} Hz), got epoch_s=${epochS}`,
   band: (lo: number, hi: number, fs: number) => `spectral band must satisfy 0 ≤ low < high ≤ fs/2 (fs=${fs} Hz → ${fs / 2} Hz), got [${lo}, ${hi}] Hz`,
+  spectrumBin: (binHz: number) => `mean-spectrum bin width must be a positive number of Hz, got ${binHz}`,
 };
 
 /** Texts written into the fatigue results (lib/exposure/fatigue-blocks.ts). */

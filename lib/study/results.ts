@@ -214,6 +214,24 @@ export interface SpectrumResult {
   psd: number[];
   /** The band the analysis suggests for the band-pass filter, Hz. */
   suggested_band_hz?: [number, number];
+  // Written by analyze (lib/study/recording-spectrum.ts); all optional for older results.
+  /** Recording file (as written in the job) and signal label of the channel. */
+  recording?: string;
+  signal?: string;
+  /** Width of the frequency bins, Hz (bin j centred on j·bin_hz). */
+  bin_hz?: number;
+  /** Epochs averaged (all whole epochs of the raw signal; rest included, NaN epochs left out). */
+  epochs?: number;
+  /** Epoch length, s (each epoch: mean removed, Hann window, one FFT). */
+  epoch_s?: number;
+  /** Suggested mains notch, Hz, or null when no mains line stands out. */
+  suggested_notch_hz?: number | null;
+  /** Plain-language reasons for the suggestion, with the numbers behind them (lib/dsp/suggest-band.ts). */
+  suggestion_reasons?: string[];
+  /** Mean and median power frequency of this spectrum over `mnf_band_hz`, Hz (null when no power). */
+  mnf_hz?: number | null;
+  mdf_hz?: number | null;
+  mnf_band_hz?: [number, number];
 }
 
 export interface StudyResults {

@@ -24,6 +24,8 @@ import { resolveFatigueSettings } from '../exposure/fatigue-settings.js';
 import { fatigueTapSpec } from '../exposure/fatigue-taps.js';
 import type { SpectralEpochSeries } from '../exposure/spectral-epochs.js';
 import type { FatigueBlock, FatigueSeries } from './results.js';
+import { recordingSpectrum } from './recording-spectrum.js'; // report2: mean spectra
+import type { SpectrumResult } from './results.js'; // report2: mean spectra
 import type { EvaMatrix, EnvelopeTrace, Finding, LoadUnit, ReferenceValue, ResultRow, StudyResults } from './results.js';
 
 export interface RunStudyOptions {
@@ -129,6 +131,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   const fatigue: FatigueBlock[] = [];
   const fatigueSeries: FatigueSeries[] = [];
   const fatigueRates = new Set<number>();
+  const spectra: SpectrumResult[] = []; // report2: mean raw spectrum per worker × recording × channel
   const recordingJob = (rec: StudyRecording, channels: number[]): RecordingJob => ({
     file: rec.file, signals: channels.map((c) => rec.channels[c]!.signalIndex), filter,
     envelope: { window_s: s.rms_window_s, rate_hz: rate },
@@ -243,6 +246,10 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           }, fatigueSettings);
           fatigue.push(...f.blocks);
           fatigueSeries.push(f.series);
+          // report2: the channel's mean raw spectrum with its band suggestion and MNF/MDF
+          const sp = recordingSpectrum(p.epochs.spectrum, { worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten },
+            p.epochs.band_hz, s.mains_hz === 'none' ? null : s.mains_hz, p.epochs.epoch_s);
+          if (sp) spectra.push(sp);
         }
 
         // The gap threshold in the envelope's unit.
@@ -370,6 +377,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     references,
     findings,
     ...(fatigueSettings.enabled ? { fatigue, fatigue_series: fatigueSeries, fatigue_method: fatigueMethod(fatigueSettings, s.band_hz, [...fatigueRates].sort((a, b) => a - b)) } : {}),
+    ...(spectra.length ? { spectra } : {}), // report2
   };
 }
 
