@@ -263,7 +263,8 @@ function fatigueBlocks(results: StudyResults, texts: ReportTexts, k: { condition
   const L = t.labels as Record<string, string>;
   const C = t.captions as Record<string, string>;
   cite('luttmann2000');
-  const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.fatigue }, { type: 'paragraph', small: true, text: t.fatigueIntro }];
+  const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.fatigue }, { type: 'paragraph', small: true, text: t.fatigueIntro },
+    { type: 'paragraph', small: true, text: method.description }, { type: 'caution', title: t.headings.cautions, items: [t.fatigueCare] }];
   const byWorker = (a: { worker: string }, b: { worker: string }) => k.workers.indexOf(a.worker) - k.workers.indexOf(b.worker) || a.worker.localeCompare(b.worker, 'en', { numeric: true });
   const pairs: [string, string][] = [];
   const muscles = ordered([...series.map((s) => s.muscle), ...fatigue.map((b) => b.muscle)], k.muscles);
@@ -317,8 +318,6 @@ function fatigueBlocks(results: StudyResults, texts: ReportTexts, k: { condition
       { label: L.muscle, width: 1.5 }, { label: L.condition, width: 1.2 }, ...cats.map((cat) => ({ label: catLabel[cat]!, width: 0.62, align: 'right' as const })),
     ], rows });
   }
-  blocks.push({ type: 'paragraph', small: true, text: method.description });
-  blocks.push({ type: 'caution', title: t.headings.cautions, items: [t.fatigueCare] });
   return blocks;
 }
 
