@@ -131,6 +131,7 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
     }
     if (items.length) p1.push({ type: 'heading', level: 3, text: cap(m) }, { type: 'bullets', items, small: true });
   }
+  p1.push(...comparisonBrief(readComparisons(results), texts, { muscles, segments }));
   p1.push({ type: 'heading', level: 2, text: t.headings.context });
   p1.push({ type: 'paragraph', text: (t.context as string[])[0], small: true });
   cite('jonsson1982', 'hansson2010');
@@ -402,6 +403,46 @@ function traceChart(tr: EnvelopeTrace, texts: ReportTexts, segments: string[]): 
 
 /** Measures whose comparisons get statements and paired charts (the page-1 figures); the table lists all. */
 const PRIMARY_MEASURES = ['p50', 'gaps_per_min'];
+
+/**
+ * Page 1: one line per muscle × task summarising the comparisons of the primary measures (median
+ * load, gap frequency): in how many workers the value was lower and higher in the second condition,
+ * and the median difference. Counts are read from per_worker (b < a, b > a). Empty without comparisons.
+ */
+function comparisonBrief(cmp: ReportComparison[], texts: ReportTexts, k: { muscles: string[]; segments: string[] }): Block[] {
+  const B = texts.t.comparisonBrief as Record<string, string>;
+  const primary = cmp.filter((c) => PRIMARY_MEASURES.includes(c.measure));
+  if (!primary.length) return [];
+  const pairKey = (c: ReportComparison) => `${c.condition_a}\u0000${c.condition_b}`;
+  const onePair = new Set(primary.map(pairKey)).size === 1;
+  const items: string[] = [];
+  for (const m of ordered(primary.map((c) => c.muscle), k.muscles)) {
+    // tasks only: the whole recording ('all') mixes them and is listed on the comparison page
+    for (const sg of ordered(primary.filter((c) => c.muscle === m && c.segment !== 'all').map((c) => c.segment), k.segments)) {
+      const mine = primary.filter((c) => c.muscle === m && c.segment === sg);
+      for (const pk of ordered(mine.map(pairKey))) {
+        const cs = PRIMARY_MEASURES.flatMap((ms) => mine.filter((c) => pairKey(c) === pk && c.measure === ms));
+        const parts = cs.map((c) => {
+          const diff = c.median_difference === null ? '–' : (c.median_difference > 0 ? '+' : '') + formatNumber(c.median_difference);
+          const vars = { measure: measureName(c.measure, texts), n: c.n, diff, unit: c.unit };
+          const both = c.per_worker.filter((p) => p.a !== null && p.b !== null);
+          const text = c.paired && both.length
+            ? fillRequired(B.paired, { ...vars, n: both.length, lower: both.filter((p) => p.b! < p.a!).length, higher: both.filter((p) => p.b! > p.a!).length })
+            : fillRequired(B.unpaired, vars);
+          return text + (c.descriptive_only ? B.descriptive : '');
+        });
+        const c0 = cs[0]!;
+        items.push(fillRequired(B.line, { muscle: cap(m), segment: sg, pair: onePair ? '' : fillRequired(B.pair, { a: c0.condition_a, b: c0.condition_b }), parts: parts.join('; ') }));
+      }
+    }
+  }
+  const c0 = primary[0]!;
+  return [
+    { type: 'heading', level: 2, text: texts.t.headings.comparisonBrief },
+    { type: 'paragraph', small: true, text: onePair ? fillRequired(B.intro, { a: c0.condition_a, b: c0.condition_b }) : B.introMixed },
+    { type: 'bullets', small: true, items },
+  ];
+}
 
 function comparisonBlocks(cmp: ReportComparison[], texts: ReportTexts): Block[] {
   const { t } = texts;
