@@ -12,6 +12,7 @@ export const msg = {
   emptyFile: (file: string) => `${file}: file is empty`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read (${reason})`,
   outputIsInput: (file: string) => `${file}: output path is also an input; refusing to overwrite an input`,
+  notResults: (file: string, what: string) => `${file}: not a shiftload results file: ${what}`,
   outputNotFolder: (dir: string) => `${dir}: output path exists and is not a folder`,
   outputExists: (dir: string) => `${dir}: output folder exists and is not empty; use --force to reuse it`,
   badOption: (option: string, expected: string, got: string) => `--${option}: expected ${expected}, got ${got}`,
