@@ -78,6 +78,7 @@ export const ioMsg = {
   writerNumber: (what: string, value: number) => `EDF writer: ${what} ${value} does not fit in an 8-character EDF header field`,
   writerPhysRange: (label: string, lo: number, hi: number) => `EDF writer: signal '${label}': physical minimum ${lo} must be below maximum ${hi}`,
   // convert
+  convertProcessingGap: (file: string) => `${file}: the recording is discontinuous (EDF+D); filtering or an envelope needs continuous data — convert each continuous span with --start/--end`,
   convertMixedRates: (rates: string) =>
     `convert --format csv: the selected signals have different sampling rates (${rates} Hz); select signals of one rate with --signals`,
   convertUnknownSignal: (name: string, labels: string) => `--signals: no signal named '${name}' (signals: ${labels})`,
