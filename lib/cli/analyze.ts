@@ -1,5 +1,6 @@
 // `shiftload analyze JOB [--out DIR]`: the whole study job — job file in, results.json,
 // segments.csv and report.pdf out.
+import { readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { basename, dirname, extname, join, relative } from 'node:path';
 import type { CommandModule } from 'yargs';
@@ -70,6 +71,9 @@ export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: C
   }
   results.comparisons = planComparisons(compareConditions(results.rows, {}), options.detect);
   const written = writeStudyOutputs(outDir, results);
+  // The report is drawn from results as written (numbers rounded in results.json), so that
+  // `shiftload report results.json` later gives the same bytes.
+  results = JSON.parse(readFileSync(written.results, 'utf8')) as StudyResults;
   const files = [written.results, written.rows];
   if (options.report !== false) {
     const { writeReport } = await import('../report/render-report.js');

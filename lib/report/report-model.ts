@@ -131,7 +131,6 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
     }
     if (items.length) p1.push({ type: 'heading', level: 3, text: cap(m) }, { type: 'bullets', items, small: true });
   }
-  p1.push(...comparisonBrief(readComparisons(results), texts, { muscles, segments }));
   p1.push({ type: 'heading', level: 2, text: t.headings.context });
   p1.push({ type: 'paragraph', text: (t.context as string[])[0], small: true });
   cite('jonsson1982', 'hansson2010');
@@ -140,6 +139,8 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
   p1.push({ type: 'heading', level: 2, text: t.headings.quality });
   p1.push({ type: 'paragraph', small: true, text: qualitySentence(results, texts, recordedS) });
   p1.push({ type: 'caution', title: t.headings.cautions, items: texts.cautions });
+  // The comparison in brief follows the cautions, so they stay on the first sheet.
+  p1.push(...comparisonBrief(readComparisons(results), texts, { muscles, segments }));
 
   // ---------------------------------------------------------------- overview charts + table
   const pOverview: Block[] = [{ type: 'heading', level: 1, text: t.headings.overview }, { type: 'paragraph', text: t.overviewIntro, small: true }];
