@@ -187,8 +187,12 @@ export class QualityTap implements ChannelTap {
     this.ecg = new WindowColumns<EcgCol>(['rate', 'r'], 64);
   }
 
-  /** Raw chunk (physical values). `first` is ignored: positions are kept from the restarts. */
-  raw(x: Float64Array): void {
+  /**
+   * Raw chunk (physical values). `first` (index of x[0] among the samples read) is not needed:
+   * positions are kept by the tap itself, including the time jumps announced by restart().
+   */
+  raw(x: Float64Array, first?: number): void {
+    void first;
     const n = x.length;
     const W1 = this.W1, hiL = this.hiLimit, loL = this.loLimit;
     let i = 0;
