@@ -29,9 +29,15 @@ export class HeartRateScratch {
   d = new Float64Array(0);
   sortBuf = new Float64Array(0);
   r = new Float64Array(0);
+  private med = new Float64Array(0);
+  /** A buffer of at least n values for the baseline points. */
+  medians(n: number): Float64Array {
+    if (this.med.length < n) this.med = new Float64Array(n);
+    return this.med;
+  }
   ensure(n: number, win: number, lags: number): void {
     if (this.d.length < n) this.d = new Float64Array(n);
-    if (this.sortBuf.length < win) this.sortBuf = new Float64Array(win);
+    if (this.sortBuf.length !== win) this.sortBuf = new Float64Array(win);
     if (this.r.length < lags) this.r = new Float64Array(lags);
   }
 }
@@ -58,15 +64,26 @@ export function estimateHeartRate(bins: Float64Array, n: number, options: HeartR
   const d = scratch.d, sb = scratch.sortBuf, r = scratch.r;
 
   // Spike enhancement: excess over a running median (window 2·half+1, shrinking at the ends).
-  for (let m = 0; m < n; m++) {
+  // The median is evaluated every `stride` bins and interpolated linearly in between (the
+  // baseline is smooth at that scale; a sort per bin was most of the tap's time).
+  const stride = Math.max(1, Math.floor(half / 4));
+  const points = Math.ceil((n - 1) / stride) + 1;
+  const med = scratch.medians(points);
+  for (let j = 0; j < points; j++) {
+    const m = Math.min(n - 1, j * stride);
     const a = Math.max(0, m - half), b = Math.min(n, m + half + 1);
     const w = b - a;
-    for (let j = 0; j < w; j++) sb[j] = bins[a + j];
-    const s = sb.subarray(0, w).sort();
-    const med = w & 1 ? s[w >> 1] : 0.5 * (s[(w >> 1) - 1] + s[w >> 1]);
+    for (let k = 0; k < w; k++) sb[k] = bins[a + k];
+    const s = w === sb.length ? sb.sort() : sb.subarray(0, w).sort();
+    med[j] = w & 1 ? s[w >> 1] : 0.5 * (s[(w >> 1) - 1] + s[w >> 1]);
+  }
+  for (let m = 0; m < n; m++) {
+    const j = Math.floor(m / stride);
+    const m0 = j * stride, m1 = Math.min(n - 1, (j + 1) * stride);
+    const base = j + 1 < points && m1 > m0 ? med[j] + ((m - m0) / (m1 - m0)) * (med[j + 1] - med[j]) : med[j];
     // relative excess: amplitude-modulated noise has the same relative spread at every level,
     // so changes of muscle activity do not leak into the autocorrelation
-    const e = med > 0 ? (bins[m] - med) / med : 0;
+    const e = base > 0 ? (bins[m] - base) / base : 0;
     d[m] = e > 0 ? e : 0;
   }
   let mean = 0;

@@ -173,7 +173,7 @@ export class QualityTap implements ChannelTap {
     }
     this.amp = new WindowColumns(AMP_COLS);
     this.nperseg = 2 ** Math.max(3, Math.round(Math.log2(fs / 2)));
-    this.hop = this.nperseg / 2;
+    this.hop = this.nperseg; // no overlap: half the FFTs of a half-overlapped Welch, the check did not need more
     this.seg = new Float64Array(this.nperseg);
     this.powers = new SegmentBandPowers({
       fs, nperseg: this.nperseg, motion_hz: s.motion_hz, band_hz: s.band_hz, mains_hz: s.mains_hz, mains_harmonics: s.mains_harmonics,
@@ -248,13 +248,22 @@ export class QualityTap implements ChannelTap {
       this.gf += end - i;
       i = end;
     }
-    // ECG bins: mean |y| per bin of B samples, nb bins per ECG window
+    // ECG bins: mean |y| per bin of B samples, nb bins per ECG window; runs up to the next bin
+    // or window edge keep the inner loop free of bookkeeping
     const B = this.B, WE = this.WE, nb = this.nb, bins = this.bins;
-    for (let j = 0; j < n; j++) {
-      const v = y[j];
-      if (v === v) { this.binAcc += v < 0 ? -v : v; this.binCnt++; }
-      this.binPos++;
-      this.ePos++;
+    let j = 0;
+    while (j < n) {
+      const stop = Math.min(n, j + (B - this.binPos), j + (WE - this.ePos));
+      let acc = 0, cnt = 0;
+      for (let k = j; k < stop; k++) {
+        const v = y[k];
+        if (v === v) { acc += v < 0 ? -v : v; cnt++; }
+      }
+      this.binAcc += acc;
+      this.binCnt += cnt;
+      this.binPos += stop - j;
+      this.ePos += stop - j;
+      j = stop;
       if (this.binPos === B) {
         if (this.binIdx < nb) bins[this.binIdx] = this.binCnt > 0 ? this.binAcc / this.binCnt : NaN;
         this.binIdx++;

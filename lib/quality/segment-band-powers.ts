@@ -64,7 +64,7 @@ export class SegmentBandPowers {
       const c: number[] = [];
       for (let h = 1; h <= o.mains_harmonics; h++) {
         const k = Math.round((h * f) / df);
-        if (h * f <= hiHz && k - 10 >= 1 && k + 10 <= n / 2) c.push(k);
+        if (h * f <= hiHz && k - 12 >= 1 && k + 12 <= n / 2) c.push(k);
       }
       return Int32Array.from(c);
     });
@@ -115,18 +115,17 @@ export class SegmentBandPowers {
     out[BAND.band] = this.absBand / c;
     for (let m = 0; m < this.centres.length; m++) {
       const cs = this.centres[m];
+      // power of the 3 bins nearest each multiple above the mean of bins 4…12 away on both sides
+      // (18 bins, outside the Hann main lobe); summed over the multiples before clipping at 0, so
+      // the random spread of the bins does not add up to a spurious excess
       let excess = 0;
       for (let j = 0; j < cs.length; j++) {
         const k = cs[j];
-        // background: mean of bins 4…9 away on both sides (12 bins), outside the Hann main lobe
         let bg = 0;
-        for (let d = 4; d <= 9; d++) bg += p[k - d] + p[k + d];
-        const med = bg / 12;
-        let peak = 0;
-        for (let d = -2; d <= 2; d++) peak += p[k + d];
-        const e = peak - 5 * med;
-        if (e > 0) excess += e;
+        for (let d = 4; d <= 12; d++) bg += p[k - d] + p[k + d];
+        excess += p[k - 1] + p[k] + p[k + 1] - (3 * bg) / 18;
       }
+      if (excess < 0) excess = 0;
       out[BAND.mains0 + m] = excess;
     }
     let total = 0;

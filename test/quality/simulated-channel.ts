@@ -47,7 +47,7 @@ export function simulate(o: SimOptions): Float64Array {
     fs: o.fs, duration_s: o.duration_s, envelope: env, rate_hz: rate, mve_uv: o.mve_uv ?? 400, noise_uv: o.noise_uv ?? 3,
     artifacts: o.artifacts ?? {}, seed: BigInt(o.seed) * 7919n + 13n,
   });
-  const syn = new RecordingSynthesizer(design, butterShaper([20, 450], 4, o.fs));
+  const syn = new RecordingSynthesizer(design, butterShaper([20, Math.min(450, 0.45 * o.fs)], 4, o.fs));
   const x = new Float64Array(syn.totalSamples);
   while (syn.remaining > 0) {
     const at = syn.position;
