@@ -21,7 +21,7 @@ export interface QualitySettings {
   ecg_window_s: number;
   /** A window with at least this many samples at the digital limits is reported. @default 1 */
   clip_min_samples: number;
-  /** Share of a window's samples at the digital limits from which the window is excluded, 0–1. @default 0.01 */
+  /** Share of a window's samples at the digital limits from which the window is excluded, 0–1. @default 0.02 */
   clip_exclude_share: number;
   /** A window whose raw standard deviation is below this (or half a digital step), µV, is a flat line. @default 0.1 */
   flat_std_uv: number;
@@ -51,7 +51,7 @@ export interface QualitySettings {
   ecg_bpm: [number, number];
   /** Autocorrelation at the heart period from which ECG is reported, 0–1. @default 0.3 */
   ecg_min_r: number;
-  /** Bin length of the spike-enhanced signal (mean rectified value per bin), s. @default 0.01 */
+  /** Bin length of the spike-enhanced signal (mean rectified value per bin), s. @default 0.02 */
   ecg_bin_s: number;
   /** Running-median baseline removed from the binned signal, s. @default 0.5 */
   ecg_baseline_s: number;
@@ -81,7 +81,7 @@ export const QUALITY_DEFAULTS: Readonly<QualitySettings> = Object.freeze({
   motion_relative: 10,
   ecg_bpm: Object.freeze([40, 180]) as unknown as [number, number],
   ecg_min_r: 0.3,
-  ecg_bin_s: 0.01,
+  ecg_bin_s: 0.02,
   ecg_baseline_s: 0.5,
   snr_min_db: 6,
   max_spans: 20,
