@@ -49,6 +49,13 @@ export const ioMsg = {
     `${file}: annotation in data record ${record + 1} (byte ${offset}): ${what}`,
   noTimekeeping: (file: string, record: number, offset: number) =>
     `${file}: data record ${record + 1} (byte ${offset}) has no time-keeping annotation (EDF+ requires one per record)`,
+  notContinuous: (file: string, record: number, offset: number, t: number, expected: number) =>
+    `${file}: data record ${record + 1} (byte ${offset}) starts at ${t} s by its time-keeping annotation, expected ${expected} s in a continuous (EDF+C/BDF+C) file`,
+  writerDigital: (label: string, lo: number, hi: number, min: number, max: number) =>
+    `EDF writer: signal '${label}': digital range ${lo}..${hi} must lie within ${min}..${max} with minimum below maximum`,
+  writerStart: (start: string) => `EDF writer: start '${start}' must be YYYY-MM-DDTHH:MM:SS`,
+  writerSubsecond: (x: number) => `EDF writer: start_subsecond_s must be in [0, 1), got ${x}`,
+  writerNoSignals: () => 'EDF writer: at least one signal is needed',
   unknownSignal: (file: string, index: number, count: number) => `${file}: no signal with index ${index} (file has ${count})`,
   // CSV / TSV
   csvNoHeader: (file: string) => `${file}:1: expected a header row with channel names`,
@@ -104,6 +111,18 @@ export const dspMsg = {
   frequencyRange: (fmin: number, fmax: number) => `frequency range must have fminHz below fmaxHz, got ${fmin}…${fmax} Hz`,
   spectrumLength: (lf: number, lp: number) => `frequencies and PSD must have the same length, got ${lf} and ${lp}`,
   medianConvention: (got: string) => `median frequency convention must be one of bin, interp, got ${got}`,
+  sosA0: (row: number, got: number) => `sos row ${row}: a0 must be 1, got ${got}`,
+  outputBuffer: (need: number, got: number) => `output buffer must hold at least ${need} samples, got ${got}`,
+  spectrumBins: (got: number) => `spectrum must have at least 8 bins, got ${got}`,
+  blockSize: (got: number) => `blockSize must be a whole number of samples ≥ 1, got ${got}`,
+  pushAfterFlush: () => 'ZeroPhaseFilter: push() after flush(); create a new filter for a new stream',
+  // spectrum command
+  spectrumUnknownSignal: (name: string, labels: string) => `--signal: no signal named '${name}' (signals: ${labels})`,
+  spectrumSpan: (start: number, end: number, duration: number) =>
+    `--start ${start} / --end ${end}: expected 0 <= start < end <= ${duration} s (recording duration)`,
+  spectrumOverlap: (got: number) => `--overlap must be a fraction from 0 to below 1 (e.g. 0.5), got ${got}`,
+  spectrumTooShort: (file: string, label: string, samples: number, nperseg: number) =>
+    `${file}: signal '${label}': the span holds ${samples} samples, fewer than one segment (nperseg ${nperseg}); use a longer span or a smaller --nperseg`,
 };
 
 // ---------------------------------------------------------------------------------------------

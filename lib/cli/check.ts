@@ -68,14 +68,15 @@ export const checkCommand: CommandModule<object, CheckArgs> = {
       argv.io.out(JSON.stringify({ ok: true, summary: s, settings: study.settings, gapThreshold: study.gapThreshold }, null, 2) + '\n');
       return;
     }
-    const h = (x: number) => `${x.toFixed(2)} h`;
+    const h = (hours: number) => formatDuration(hours * 3600);
     const lines = [
       `${argv.job}: valid — ${s.title}`,
       `  ${s.workers} worker(s), ${s.recordings} recording(s), ${s.channels} channel(s), ${s.segments} segment(s)`,
       `  recorded ${h(s.recorded_h)}, in segments ${h(s.segments_h)}`,
       `  conditions: ${s.conditions.join(', ')}`,
       `  muscles: ${s.muscles.join(', ')}`,
-      `  normalize ${study.settings.normalize} (${study.unit === 'uV' ? 'µV' : study.unit}); ${study.gapThreshold.note}`,
+      `  normalize ${study.settings.normalize} (${study.unit === 'uV' ? 'µV' : study.unit})`,
+      `  ${study.gapThreshold.note}`,
     ];
     for (const w of study.workers) {
       for (const r of w.recordings) {
@@ -86,3 +87,10 @@ export const checkCommand: CommandModule<object, CheckArgs> = {
     argv.io.out(lines.join('\n') + '\n');
   },
 };
+
+/** A duration for people: "42 s", "12.5 min", "7.50 h". */
+export function formatDuration(seconds: number): string {
+  if (seconds < 60) return `${Number(seconds.toFixed(1))} s`;
+  if (seconds < 3600) return `${Number((seconds / 60).toFixed(1))} min`;
+  return `${(seconds / 3600).toFixed(2)} h`;
+}

@@ -6,9 +6,11 @@ import { inspectCommand } from './inspect.js';
 import { versionInfoCommand } from './version-info.js';
 import { analyzeCommand } from './analyze.js';
 import { checkCommand } from './check.js';
+import { demoCommand } from './demo.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
 import { simulateCommand } from './simulate.js';
+import { spectrumCommand } from './spectrum.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const commands: CommandModule<any, any>[] = [
@@ -16,8 +18,10 @@ export const commands: CommandModule<any, any>[] = [
   initCommand,
   checkCommand,
   analyzeCommand,
+  demoCommand,
   schemaCommand,
   inspectCommand,
   convertCommand,
+  spectrumCommand,
   simulateCommand,
 ];

@@ -41,6 +41,8 @@ export interface ConvertOptions {
   end_s?: number;
   /** CSV input without a time column: its sampling rate, Hz. */
   rate_hz?: number;
+  /** CSV input: unit of columns whose header gives none. @default 'uV' */
+  unit?: string;
   /** Optional processing stage (none in the command itself). */
   stage?: (selected: SignalInfo[]) => ConvertStage;
 }
@@ -70,14 +72,18 @@ interface Sink {
 export async function convertRecording(input: string, o: ConvertOptions): Promise<ConvertResult> {
   const out = o.out ?? join(dirname(input), basename(input, extname(input)) + (o.format === 'csv' ? '.csv' : '.edf'));
   if (resolve(out) === resolve(input)) throw new UsageError(msg.outputIsInput(out));
-  const rec = await openRecording(input, o.rate_hz !== undefined ? { rate_hz: o.rate_hz } : {});
+  const rec = await openRecording(input, {
+    ...(o.rate_hz !== undefined ? { rate_hz: o.rate_hz } : {}),
+    ...(o.unit !== undefined ? { unit: o.unit } : {}),
+  });
   let sink: Sink | null = null;
   try {
     const info = rec.info;
     const sel = selectSignals(info, o.signals);
     const start = o.start_s ?? 0;
-    const end = o.end_s ?? info.duration_s;
-    if (!(start >= 0 && end > start && end <= info.duration_s + 1e-9)) throw new UsageError(ioMsg.convertSpan(start, end, info.duration_s));
+    const last = info.end_s ?? info.duration_s; // EDF+D: clock end of the last record
+    const end = o.end_s ?? last;
+    if (!(start >= 0 && end > start && end <= last + 1e-9)) throw new UsageError(ioMsg.convertSpan(start, end, last));
     const selInfo = sel.map((i) => info.signals[i]);
     const stage = o.stage ? o.stage(selInfo) : null;
     const rates = stage ? stage.rates_hz : selInfo.map((s) => s.rate_hz);
@@ -227,7 +233,7 @@ function addSeconds(start: string, s: number): string {
 }
 
 interface ConvertArgs extends WithIO {
-  file: string; format: 'csv' | 'edf'; out?: string; signals?: string; start?: number; end?: number; rate?: number;
+  file: string; format: 'csv' | 'edf'; out?: string; signals?: string; start?: number; end?: number; rate?: number; unit?: string;
 }
 
 export const convertCommand: CommandModule<object, ConvertArgs> = {
@@ -241,6 +247,7 @@ export const convertCommand: CommandModule<object, ConvertArgs> = {
     .option('start', { type: 'number', describe: 'span start, s from the recording start (default 0)' })
     .option('end', { type: 'number', describe: 'span end, s (default: end of the recording)' })
     .option('rate', { type: 'number', describe: 'CSV/TSV input without a time column: sampling rate in Hz' })
+    .option('unit', { type: 'string', describe: 'CSV/TSV input: unit of columns whose header gives none as "name [unit]" (default uV)' })
     .example('$0 convert logger_export.csv --format edf', 'make logger_export.edf (EDF+) beside the CSV')
     .example('$0 convert shift.edf --format csv --signals "EMG R trapezius,EMG L trapezius" --start 600 --end 900', 'five minutes of two signals as CSV')
     .example('$0 convert shift.bdf --format edf -o shift16.edf', 'a 16-bit EDF+ copy of a BDF+ file') as never,
@@ -255,6 +262,7 @@ export const convertCommand: CommandModule<object, ConvertArgs> = {
       ...(argv.start !== undefined ? { start_s: argv.start } : {}),
       ...(argv.end !== undefined ? { end_s: argv.end } : {}),
       ...(argv.rate !== undefined ? { rate_hz: argv.rate } : {}),
+      ...(argv.unit !== undefined ? { unit: argv.unit } : {}),
     });
     argv.io.out(`wrote ${r.out} (${r.format.toUpperCase()}, ${r.signals.length} signal${r.signals.length === 1 ? '' : 's'}, ${r.duration_s} s${r.format === 'edf' ? `, ${r.annotations} annotations` : ''})\n`);
   },

@@ -3,7 +3,7 @@
 // digital limits (clipping) per signal.
 import type { CommandModule } from 'yargs';
 import type { WithIO } from './cli-io.js';
-import { openRecording } from '../io/open-recording.js';
+import { openRecording, type OpenOptions } from '../io/open-recording.js';
 import type { Annotation, RecordingInfo } from '../io/recording.js';
 
 export interface InspectSignal {
@@ -44,7 +44,7 @@ export interface InspectResult {
  * @throws InputError from the readers (file, field/byte/line named)
  * @example const r = await inspectRecording('shift.edf'); r.signals[0].clipped_high
  */
-export async function inspectRecording(file: string, options: { rate_hz?: number } = {}): Promise<InspectResult> {
+export async function inspectRecording(file: string, options: OpenOptions = {}): Promise<InspectResult> {
   const rec = await openRecording(file, options);
   try {
     const info: RecordingInfo = rec.info;
@@ -154,7 +154,7 @@ function clock(s: number): string {
   return `${h}:${String(m).padStart(2, '0')}:${String(sec).padStart(2, '0')}`;
 }
 
-interface InspectArgs extends WithIO { file: string; json: boolean; rate?: number }
+interface InspectArgs extends WithIO { file: string; json: boolean; rate?: number; unit?: string }
 
 export const inspectCommand: CommandModule<object, InspectArgs> = {
   command: 'inspect <file>',
@@ -163,11 +163,15 @@ export const inspectCommand: CommandModule<object, InspectArgs> = {
     .positional('file', { type: 'string', describe: 'recording (EDF, EDF+, BDF, BDF+, CSV/TSV)', demandOption: true })
     .option('json', { type: 'boolean', default: false, describe: 'print one JSON object instead of tables' })
     .option('rate', { type: 'number', describe: 'CSV/TSV without a time column: sampling rate in Hz' })
+    .option('unit', { type: 'string', describe: 'CSV/TSV: unit of columns whose header gives none as "name [unit]" (default uV)' })
     .example('$0 inspect worker07_shift.edf', 'signals, ranges, annotations and clipped samples as tables')
     .example('$0 inspect worker07_shift.edf --json', 'the same as one JSON object (for scripts)')
     .example('$0 inspect export.csv --rate 2000', 'a CSV export without a time column, sampled at 2000 Hz') as never,
   handler: async (argv) => {
-    const r = await inspectRecording(argv.file, argv.rate !== undefined ? { rate_hz: argv.rate } : {});
+    const r = await inspectRecording(argv.file, {
+      ...(argv.rate !== undefined ? { rate_hz: argv.rate } : {}),
+      ...(argv.unit !== undefined ? { unit: argv.unit } : {}),
+    });
     if (argv.json) argv.io.out(JSON.stringify(r, null, 2) + '\n');
     else argv.io.out(formatInspect(r));
   },

@@ -55,6 +55,7 @@ export async function openEdf(file: string, fh: FileHandle, fileSize: number, op
     start: header.start,
     ...(scan.subsecond !== 0 ? { start_subsecond_s: scan.subsecond } : {}),
     duration_s: header.records * dur,
+    ...(scan.recordStarts !== null ? { end_s: scan.recordStarts[header.records - 1] + dur } : {}),
     signals,
     annotations: scan.annotations,
     record_duration_s: dur,
@@ -77,7 +78,10 @@ async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunk
   const aLo = ann[0].offset_in_record;
   const last = ann[ann.length - 1];
   const aHi = last.offset_in_record + last.samples_per_record * bps;
-  const recordStarts = new Float64Array(h.records);
+  // Record start times are kept only for EDF+D (8 bytes per record); EDF+C is checked on the fly.
+  const recordStarts = h.plus === 'D' ? new Float64Array(h.records) : null;
+  let t0 = NaN;
+  const tol = IO_DEFAULTS.continuous_tolerance_s;
   // Annotation bytes are usually a small tail of each record: read only them, one read per record,
   // unless records are small enough that reading whole groups of records is cheaper.
   const perRecord = h.record_size > 16384 && (aHi - aLo) * 8 < h.record_size;
@@ -97,17 +101,22 @@ async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunk
         const en = st + s.samples_per_record * bps;
         const fileOff = h.header_bytes + r * h.record_size + s.offset_in_record;
         const t = parseTals(file, r, buf, st, en, fileOff, annotations, a === 0);
-        if (a === 0) recordStarts[r] = t;
+        if (a !== 0) continue;
+        if (r === 0) t0 = t;
+        if (recordStarts !== null) recordStarts[r] = t;
+        else if (Math.abs(t - (t0 + r * h.record_duration_s)) > tol) {
+          // A continuous file whose records jump would give wrong times: refuse it, as EDFlib does.
+          throw new InputError(ioMsg.notContinuous(file, r, fileOff, t, t0 + r * h.record_duration_s), { file });
+        }
       }
     }
   }
   // Onsets and record times relative to the file start (the first record's time-keeping TAL).
-  const t0 = recordStarts[0];
   if (t0 !== 0) {
     for (const x of annotations) x.onset_s -= t0;
-    for (let r = 0; r < recordStarts.length; r++) recordStarts[r] -= t0;
+    if (recordStarts !== null) for (let r = 0; r < recordStarts.length; r++) recordStarts[r] -= t0;
   }
-  return { annotations, recordStarts: h.plus === 'D' ? recordStarts : null, subsecond: t0 };
+  return { annotations, recordStarts, subsecond: t0 };
 }
 
 async function readExactly(fh: FileHandle, buf: Buffer, length: number, position: number): Promise<void> {
@@ -131,7 +140,7 @@ async function* readRecords(
   const dur = h.record_duration_s;
   const startS = ro.start_s ?? 0;
   // EDF+D: the default end is the end of the last record by its own clock time
-  const endS = ro.end_s ?? (recordStarts !== null ? recordStarts[h.records - 1] + h.record_duration_s : info.duration_s);
+  const endS = ro.end_s ?? info.end_s ?? info.duration_s;
   const digital = ro.digital === true;
   const spr = sel.map((s) => s.samples_per_record);
   const rate = spr.map((n) => n / dur);

@@ -59,7 +59,8 @@ const OUT_BUFFER_BYTES = 1 << 20;
  * what every signal has delivered. `close()` pads the last partial record of each signal by
  * repeating that signal's last value (0 if it never received one), writes the record count into the
  * header and renames the file into place; `abort()` removes the temporary file.
- * NaN is written as the digital value of physical 0 (clipped); values outside the physical range
+ * Annotations whose onset lies beyond the data are kept: records repeating the last values are
+ * appended to hold them. NaN is written as the digital value of physical 0 (clipped); values outside the physical range
  * are clipped to the digital limits, as EDFlib does. Labels and other header texts are cut to their
  * field widths.
  *
@@ -98,10 +99,10 @@ export class EdfWriter {
     const bdf = extname(path).toLowerCase() === '.bdf';
     this.bps = bdf ? 3 : 2;
     const [dLo, dHi] = bdf ? [-8388608, 8388607] : [-32768, 32767];
-    if (signals.length === 0) throw new UsageError('EDF writer: at least one signal is needed');
+    if (signals.length === 0) throw new UsageError(ioMsg.writerNoSignals());
     const d = options.record_duration_s ?? chooseDuration(signals.map((s) => s.rate_hz));
     this.subsecond = options.start_subsecond_s ?? 0;
-    if (!(this.subsecond >= 0 && this.subsecond < 1)) throw new UsageError(`EDF writer: start_subsecond_s must be in [0, 1), got ${this.subsecond}`);
+    if (!(this.subsecond >= 0 && this.subsecond < 1)) throw new UsageError(ioMsg.writerSubsecond(this.subsecond));
     this.record_duration_s = d;
     this.spr = signals.map((s) => Math.round(s.rate_hz * d));
     signals.forEach((s, i) => {
@@ -125,7 +126,7 @@ export class EdfWriter {
       const dmin = s.digital_min ?? dLo;
       const dmax = s.digital_max ?? dHi;
       if (!(Number.isInteger(dmin) && Number.isInteger(dmax) && dLo <= dmin && dmin < dmax && dmax <= dHi)) {
-        throw new UsageError(`EDF writer: signal '${s.label}': digital range ${dmin}..${dmax} must lie within ${dLo}..${dHi}`);
+        throw new UsageError(ioMsg.writerDigital(s.label, dmin, dmax, dLo, dHi));
       }
       this.dmin[i] = dmin;
       this.dmax[i] = dmax;
@@ -427,7 +428,7 @@ function buildHeader(p: {
   let startdate = 'X';
   if (p.options.start !== undefined) {
     const m = /^(\d{4})-(\d\d)-(\d\d)T(\d\d):(\d\d):(\d\d)$/.exec(p.options.start);
-    if (!m) throw new UsageError(`EDF writer: start '${p.options.start}' must be YYYY-MM-DDTHH:MM:SS`);
+    if (!m) throw new UsageError(ioMsg.writerStart(p.options.start));
     date = `${m[3]}.${m[2]}.${m[1].slice(2)}`;
     time = `${m[4]}.${m[5]}.${m[6]}`;
     startdate = `${m[3]}-${MONTHS[Number(m[2]) - 1]}-${m[1]}`;

@@ -22,4 +22,6 @@ export const IO_DEFAULTS = {
   csv_time_tolerance: 0.01,
   /** time difference (s) below which consecutive EDF+D records count as contiguous */
   contiguity_tolerance_s: 1e-6,
+  /** EDF+C: largest accepted deviation (s) of a record's time-keeping TAL from index · duration */
+  continuous_tolerance_s: 1e-5,
 } as const;

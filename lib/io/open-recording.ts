@@ -44,11 +44,9 @@ export async function openRecording(path: string, options: OpenOptions = {}): Pr
   }
   const magic = Buffer.alloc(8);
   const { bytesRead } = await fh.read(magic, 0, 8, 0);
-  const head = magic.subarray(0, bytesRead);
-  if (head.equals(Buffer.from('0       ', 'latin1').subarray(0, bytesRead)) && bytesRead > 0 && head[0] === 0x30
-    || (head[0] === 0xff && head.subarray(1).equals(Buffer.from('BIOSEMI', 'latin1').subarray(0, bytesRead - 1)))) {
-    return openEdf(path, fh, size, options);
-  }
+  const isEdf = bytesRead === 8 && magic.toString('latin1') === '0       ';
+  const isBdf = bytesRead === 8 && magic[0] === 0xff && magic.toString('latin1', 1, 8) === 'BIOSEMI';
+  if (isEdf || isBdf) return openEdf(path, fh, size, options);
   const ext = extname(path).toLowerCase();
   if (ext === '.csv' || ext === '.tsv' || ext === '.txt') return openCsv(path, fh, size, options);
   if (ext === '.edf' || ext === '.bdf') return openEdf(path, fh, size, options);

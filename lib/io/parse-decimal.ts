@@ -12,7 +12,7 @@ const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i);
  * @param decimalComma accept ',' instead of '.' as the decimal separator
  * @example parseDecimal(Buffer.from('-12,5'), 0, 5, true) // -12.5
  */
-export function parseDecimal(buf: Uint8Array, a: number, b: number, decimalComma: boolean): number {
+export function parseDecimal(buf: Buffer, a: number, b: number, decimalComma: boolean): number {
   while (a < b && buf[a] === 0x20) a++;
   while (b > a && buf[b - 1] === 0x20) b--;
   if (a >= b) return NaN;
@@ -53,10 +53,9 @@ export function parseDecimal(buf: Uint8Array, a: number, b: number, decimalComma
   if (sig <= 15 && scale >= -22 && scale <= 22) {
     v = scale < 0 ? mant / POW10[-scale] : mant * POW10[scale];
   } else {
-    let s = '';
-    for (let k = a; k < b; k++) s += String.fromCharCode(buf[k] === sep ? 0x2e : buf[k]);
-    v = Number(s);
-    return v;
+    // text already validated as a plain number above, so Number() cannot accept anything more
+    const s = buf.toString('latin1', a, b);
+    return Number(decimalComma ? s.replace(',', '.') : s);
   }
   return neg ? -v : v;
 }

@@ -50,6 +50,11 @@ export interface RecordingInfo {
   start_subsecond_s?: number;
   /** Total duration in s (records × record duration; CSV: samples / rate). */
   duration_s: number;
+  /**
+   * EDF+D only: end of the last data record in s from the start, by the records' own time-keeping
+   * (larger than duration_s when the file has gaps). Absent for continuous files (= duration_s).
+   */
+  end_s?: number;
   signals: SignalInfo[];
   annotations: Annotation[];
   /** EDF/BDF record duration in s; null for CSV. */

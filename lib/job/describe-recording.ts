@@ -1,5 +1,6 @@
 // What the job loader needs to know about a recording, without reading its samples: signal labels
 // and rates, duration and annotations. Injected into loadJob so tests can use fakes.
+import { openRecording } from '../io/open-recording.js';
 import type { Annotation } from '../io/recording.js';
 
 /** Header facts of one recording. */
@@ -12,31 +13,22 @@ export interface RecordingDescription {
   annotations: Annotation[];
 }
 
-/** Describe the recording at an absolute path; throws InputError when it cannot be read. */
-export type DescribeRecording = (path: string) => Promise<RecordingDescription>;
-
-interface OpenRecordingModule {
-  openRecording(path: string): Promise<{
-    info: { duration_s: number; signals: { label: string; rate_hz: number }[]; annotations: Annotation[] };
-    close(): Promise<void>;
-  }>;
+/** Options a describer passes on to the reader. */
+export interface DescribeOptions {
+  /** CSV without a time column: sampling rate, Hz. */
+  rate_hz?: number;
 }
 
+/** Describe the recording at an absolute path; throws InputError when it cannot be read. */
+export type DescribeRecording = (path: string, options?: DescribeOptions) => Promise<RecordingDescription>;
+
 /**
- * The default describer: opens the file with the io readers (lib/io/open-recording.ts), reads
- * only its header (and EDF+ annotations), and closes it.
- * @throws InputError from the reader for unreadable files
+ * The default describer: opens the file with the io readers (openRecording), takes its header
+ * facts (and EDF+ annotations) and closes it; no samples are read.
+ * @throws InputError from the reader for missing, unreadable or malformed files
  */
-export const describeRecordingFile: DescribeRecording = async (path) => {
-  // Resolved at run time so the job module builds before the readers exist on this branch.
-  const spec = '../io/open-recording.js';
-  let mod: OpenRecordingModule;
-  try {
-    mod = (await import(spec)) as OpenRecordingModule;
-  } catch {
-    throw new Error('recording readers (lib/io/open-recording.ts) are not available in this build');
-  }
-  const rec = await mod.openRecording(path);
+export const describeRecordingFile: DescribeRecording = async (path, options = {}) => {
+  const rec = await openRecording(path, options.rate_hz !== undefined ? { rate_hz: options.rate_hz } : {});
   try {
     return {
       signals: rec.info.signals.map((s) => ({ label: s.label, rate_hz: s.rate_hz })),

@@ -9,6 +9,7 @@ export interface SpanInput {
   end_s?: number;
   annotation?: string;
   duration_s?: number;
+  rate_hz?: number;
 }
 
 export type SpansInput = SpanInput | SpanInput[];
@@ -24,6 +25,7 @@ export interface ChannelInput { signal: string; muscle?: string }
 
 export interface RecordingInput {
   file: string;
+  rate_hz?: number;
   condition: string;
   notes?: string;
   channels: ChannelInput[];

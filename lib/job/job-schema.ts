@@ -23,6 +23,7 @@ const span = {
     end_s: nonNegativeSeconds('End', 'End of the span, s from the start of the file (greater than start_s).'),
     annotation: { type: 'string', minLength: 1, title: 'Annotation text', description: 'EDF+ annotation text (exact match, case-sensitive). Every annotation with this text becomes one span (onset to onset + duration); several spans mean several trials.' },
     duration_s: { type: 'number', exclusiveMinimum: 0, title: 'Duration', description: 'With annotation: length of the span from the annotation onset, s. Needed when the annotation has no duration; overrides it otherwise.' },
+    rate_hz: { type: 'number', exclusiveMinimum: 0, title: 'CSV sampling rate, Hz', description: 'Only for a CSV file without a time column: its sampling rate in Hz. Default: the enclosing recording\'s rate_hz when the file is the same.' },
   },
 };
 
@@ -97,6 +98,7 @@ const recording = {
   required: ['file', 'condition', 'channels', 'segments'],
   properties: {
     file: { type: 'string', minLength: 1, title: 'File', description: 'Recording file (EDF, EDF+, BDF, BDF+ or CSV), relative to the job file.' },
+    rate_hz: { type: 'number', exclusiveMinimum: 0, title: 'CSV sampling rate, Hz', description: 'Only for a CSV recording without a time column: its sampling rate in Hz (ignored when the file has a time column or is EDF/BDF).' },
     condition: { type: 'string', minLength: 1, title: 'Condition', description: 'Condition name (e.g. current workstation, redesign); conditions are compared across workers.' },
     notes: { type: 'string', title: 'Notes', description: 'Free text, printed in the report.' },
     channels: { type: 'array', minItems: 1, items: channel, title: 'Channels', description: 'The EMG signals to analyse.' },

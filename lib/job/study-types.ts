@@ -9,6 +9,8 @@ export interface StudySpan {
   file: string;
   /** The path as written in the job file (for messages and the report). */
   fileAsWritten: string;
+  /** Sampling rate to pass to openRecording for a CSV file without a time column; null otherwise. */
+  rate_hz: number | null;
   start_s: number;
   end_s: number;
   /** The annotation text the span came from, or null when given by times. */
@@ -46,6 +48,8 @@ export interface StudyRecording {
   /** Absolute path. */
   file: string;
   fileAsWritten: string;
+  /** Sampling rate to pass to openRecording for a CSV file without a time column; null otherwise. */
+  rate_hz: number | null;
   condition: string;
   notes: string | null;
   /** Recording length from its header, s. */

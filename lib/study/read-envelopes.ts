@@ -151,7 +151,8 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
   try {
     const info = rec.info;
     const start_s = Math.max(0, req.start_s);
-    const end_s = req.end_s === null ? info.duration_s : Math.min(info.duration_s, req.end_s);
+    const fileEnd = info.end_s ?? info.duration_s; // EDF+D: clock time of the last record's end
+    const end_s = req.end_s === null ? fileEnd : Math.min(fileEnd, req.end_s);
     const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null));
     let discontinuities = 0;
     let first = true;

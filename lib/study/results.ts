@@ -33,10 +33,15 @@ export interface ResultRow {
   signal: string;
   /** Recording file (as written in the job). */
   recording: string;
-  /** Segment label; "all" for the whole recording. */
+  /** Task label; "all" for the whole recording. Every segment with this label is joined. */
   segment: string;
+  /** First start and last end of the task's segments, s from the recording start. */
   start_s: number;
   end_s: number;
+  /** Number of segments (occurrences) joined in this row. */
+  segments: number;
+  /** Total length of those segments, s. */
+  segment_s: number;
   /** Time that entered the statistics, s (segment length less excluded time). */
   valid_s: number;
   unit: LoadUnit;

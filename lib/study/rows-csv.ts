@@ -5,7 +5,7 @@ import { roundSignificant } from './stable-json.js';
 
 /** Column order: identifying fields first, then measures in the order of the first row. */
 export function rowColumns(rows: readonly ResultRow[]): string[] {
-  const first = ['worker', 'condition', 'muscle', 'signal', 'recording', 'segment', 'start_s', 'end_s', 'valid_s', 'unit', 'reference_uv', 'noise_uv'];
+  const first = ['worker', 'condition', 'muscle', 'signal', 'recording', 'segment', 'start_s', 'end_s', 'segments', 'segment_s', 'valid_s', 'unit', 'reference_uv', 'noise_uv'];
   const seen = new Set(first);
   const cols = [...first];
   for (const r of rows) for (const k of Object.keys(r)) if (!seen.has(k)) { seen.add(k); cols.push(k); }

@@ -15,7 +15,9 @@ import type { Study, StudyRecording, StudySpan } from '../job/study-types.js';
 import { findingText } from '../messages.js';
 import { toolVersion } from '../cli/tool-version.js';
 import { decimateTrace } from './decimate-trace.js';
+import type { RecordingJob, RecordingJobResult } from './process-recording.js';
 import { readEnvelopes, type FilterSpec } from './read-envelopes.js';
+import { RecordingPool } from './worker-pool.js';
 import type { EvaMatrix, EnvelopeTrace, Finding, LoadUnit, ReferenceValue, ResultRow, StudyResults } from './results.js';
 
 export interface RunStudyOptions {
@@ -23,6 +25,12 @@ export interface RunStudyOptions {
   onProgress?: (done_s: number, total_s: number, note: string) => void;
   /** Reader options (chunk size; tests prove results do not depend on it). */
   open?: OpenOptions;
+  /**
+   * Field recordings processed at once: 1 = one after another on this thread; N ≥ 2 = N worker
+   * threads. Results are identical for every value.
+   * @default 1
+   */
+  jobs?: number;
 }
 
 /** Per worker × channel position: the levels used to correct and normalize its envelopes. */
@@ -70,6 +78,9 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) total += sp.end_s - sp.start_s;
   }
   let done = 0;
+  // CSV recordings without a time column carry their rate in the job.
+  const openOptions = (rate_hz: number | null): OpenOptions | undefined =>
+    rate_hz === null ? options.open : { ...options.open, rate_hz };
   const progress = (d: number, note: string) => options.onProgress?.(Math.min(total, d), total, note);
 
   // Reference and rest values are cached per span and signal: a worker-level reference serves
@@ -82,7 +93,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     const from = Math.max(0, span.start_s - SPAN_MARGIN_S);
     const res = await readEnvelopes({
       file: span.file, signals: [signal], start_s: from, end_s: span.end_s + SPAN_MARGIN_S, filter,
-      envelope: { window_s, rate_hz: rateHz }, open: options.open,
+      envelope: { window_s, rate_hz: rateHz }, open: openOptions(span.rate_hz),
     });
     // Keep only windows lying wholly inside the span (centre within half a window of its ends).
     const env = res.channels[0]!.envelope;
@@ -100,163 +111,180 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     return values;
   }
 
-  for (const worker of study.workers) {
-    const pending: PendingChannel[] = [];
-    const levels = new Map<string, ChannelLevels>(); // key: recording id + channel index
+  // Field recordings: with worker threads every recording is queued at once (the pool runs
+  // `jobs` of them at a time); inline, each is read when its turn comes.
+  const jobs = Math.max(1, Math.floor(options.jobs ?? 1));
+  const pool = new RecordingPool(jobs > 1 ? jobs : 0);
+  const recordingJob = (rec: StudyRecording): RecordingJob => ({
+    file: rec.file, signals: rec.channels.map((ch) => ch.signalIndex), filter,
+    envelope: { window_s: s.rms_window_s, rate_hz: rate },
+    second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
+    open: openOptions(rec.rate_hz),
+  });
+  const queued = new Map<string, Promise<RecordingJobResult>>();
+  if (jobs > 1) {
+    for (const w of study.workers) for (const rec of w.recordings) {
+      const p = pool.run(recordingJob(rec));
+      p.catch(() => { /* awaited (and reported) in order below */ });
+      queued.set(rec.id, p);
+    }
+  }
+  try {
+    for (const worker of study.workers) {
+      const pending: PendingChannel[] = [];
+      const levels = new Map<string, ChannelLevels>(); // key: recording id + channel index
 
-    for (const rec of worker.recordings) {
-      // Noise and reference levels for each channel of this recording.
-      for (let c = 0; c < rec.channels.length; c++) {
+      for (const rec of worker.recordings) {
+        // Noise and reference levels for each channel of this recording.
+        for (let c = 0; c < rec.channels.length; c++) {
+          const ch = rec.channels[c]!;
+          const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
+          let noise: number | null = null;
+          if (s.noise_correction && rec.rest.length > 0) {
+            let min = Infinity;
+            for (const sp of rec.rest) {
+              const v = await spanEnvelope(sp, sp.signalIndices[c]!, s.noise_window_s, rate);
+              for (let i = 0; i < v.length; i++) if (v[i]! < min) min = v[i]!;
+            }
+            noise = Number.isFinite(min) ? min : null;
+            if (noise === null) findings.push({ severity: 'warning', code: 'noise-unavailable', where, message: findingText.noiseUnavailable(ch.signal) });
+          }
+          const correct = (v: number) => (noise === null ? v : noiseCorrect(v, noise));
+          let reference: number | null = null;
+          if (s.normalize === 'mve' || s.normalize === 'rve') {
+            reference = await referenceLevel(rec.reference, c, s.normalize, correct);
+            if (reference !== null && !(reference > 0)) {
+              findings.push({ severity: 'error', code: 'reference-zero', where, message: findingText.referenceZero(ch.signal, noise) });
+              reference = null;
+            }
+          }
+          let mve: number | null = null;
+          if (study.gapThreshold.convertPerWorker && rec.mveReference.length > 0) {
+            mve = await referenceLevel(rec.mveReference, c, 'mve', correct);
+          }
+          levels.set(`${rec.id}\u0000${c}`, { noise_uv: noise, reference_uv: reference, mve_uv: mve });
+        }
+
+        // The field recording: one streaming pass for all its channels.
+        const base = done;
+        const res = await (queued.get(rec.id) ?? pool.run(recordingJob(rec), (d) => progress(base + d, rec.fileAsWritten)));
+        done = base + rec.duration_s;
+        progress(done, rec.fileAsWritten);
+        if (res.discontinuities > 0) {
+          findings.push({ severity: 'info', code: 'discontinuous', where: { worker: worker.id, recording: rec.fileAsWritten }, message: findingText.discontinuous(res.discontinuities) });
+        }
+        res.channels.forEach((chRes, c) => {
+          filterByRate.set(chRes.fs, chRes.filter);
+          const lv = levels.get(`${rec.id}\u0000${c}`)!;
+          const env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
+          const peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);
+          pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples });
+        });
+      }
+
+      // Task-peak: the highest reference-window RMS of that muscle over all the worker's recordings.
+      if (s.normalize === 'task-peak') {
+        const peaks = new Map<string, number>();
+        for (const p of pending) {
+          const muscle = p.rec.channels[p.c]!.muscle;
+          let m = peaks.get(muscle) ?? -Infinity;
+          const e = p.peakEnv!;
+          for (let i = 0; i < e.length; i++) if (e[i]! > m) m = e[i]!;
+          peaks.set(muscle, m);
+        }
+        for (const p of pending) {
+          const lv = levels.get(`${p.rec.id}\u0000${p.c}`)!;
+          const m = peaks.get(p.rec.channels[p.c]!.muscle)!;
+          lv.reference_uv = m > 0 && Number.isFinite(m) ? m : null;
+        }
+      }
+
+      for (const p of pending) {
+        const { rec, c } = p;
         const ch = rec.channels[c]!;
-        const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
-        let noise: number | null = null;
-        if (s.noise_correction && rec.rest.length > 0) {
-          let min = Infinity;
-          for (const sp of rec.rest) {
-            const v = await spanEnvelope(sp, sp.signalIndices[c]!, s.noise_window_s, rate);
-            for (let i = 0; i < v.length; i++) if (v[i]! < min) min = v[i]!;
-          }
-          noise = Number.isFinite(min) ? min : null;
-          if (noise === null) findings.push({ severity: 'warning', code: 'noise-unavailable', where, message: findingText.noiseUnavailable(ch.signal) });
-        }
-        const correct = (v: number) => (noise === null ? v : noiseCorrect(v, noise));
-        let reference: number | null = null;
-        if (s.normalize === 'mve' || s.normalize === 'rve') {
-          reference = await referenceLevel(rec.reference, c, s.normalize, correct);
-          if (reference !== null && !(reference > 0)) {
-            findings.push({ severity: 'error', code: 'reference-zero', where, message: findingText.referenceZero(ch.signal, noise) });
-            reference = null;
-          }
-        }
-        let mve: number | null = null;
-        if (study.gapThreshold.convertPerWorker && rec.mveReference.length > 0) {
-          mve = await referenceLevel(rec.mveReference, c, 'mve', correct);
-        }
-        levels.set(`${rec.id}\u0000${c}`, { noise_uv: noise, reference_uv: reference, mve_uv: mve });
-      }
-
-      // The field recording: one streaming pass for all its channels.
-      const base = done;
-      const res = await readEnvelopes({
-        file: rec.file, signals: rec.channels.map((ch) => ch.signalIndex), start_s: 0, end_s: null, filter,
-        envelope: { window_s: s.rms_window_s, rate_hz: rate },
-        second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
-        open: options.open,
-        onProgress: (d) => progress(base + d, rec.fileAsWritten),
-      });
-      done = base + rec.duration_s;
-      if (res.discontinuities > 0) {
-        findings.push({ severity: 'info', code: 'discontinuous', where: { worker: worker.id, recording: rec.fileAsWritten }, message: findingText.discontinuous(res.discontinuities) });
-      }
-      res.channels.forEach((chRes, c) => {
-        filterByRate.set(chRes.fs, chRes.filter);
         const lv = levels.get(`${rec.id}\u0000${c}`)!;
-        const env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
-        const peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);
-        pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples });
-      });
-    }
-
-    // Task-peak: the highest reference-window RMS of that muscle over all the worker's recordings.
-    if (s.normalize === 'task-peak') {
-      const peaks = new Map<string, number>();
-      for (const p of pending) {
-        const muscle = p.rec.channels[p.c]!.muscle;
-        let m = peaks.get(muscle) ?? -Infinity;
-        const e = p.peakEnv!;
-        for (let i = 0; i < e.length; i++) if (e[i]! > m) m = e[i]!;
-        peaks.set(muscle, m);
-      }
-      for (const p of pending) {
-        const lv = levels.get(`${p.rec.id}\u0000${p.c}`)!;
-        const m = peaks.get(p.rec.channels[p.c]!.muscle)!;
-        lv.reference_uv = m > 0 && Number.isFinite(m) ? m : null;
-      }
-    }
-
-    for (const p of pending) {
-      const { rec, c } = p;
-      const ch = rec.channels[c]!;
-      const lv = levels.get(`${rec.id}\u0000${c}`)!;
-      const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
-      references.push({
-        worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
-        method: s.normalize, reference_uv: lv.reference_uv, noise_uv: lv.noise_uv, mve_uv: lv.mve_uv,
-        spans: rec.reference.map((sp) => ({ file: sp.fileAsWritten, start_s: sp.start_s, end_s: sp.end_s, annotation: sp.annotation })),
-      });
-      if (p.clipped > 0) {
-        findings.push({ severity: 'warning', code: 'clipping', where, message: findingText.clipping(p.clipped, p.samples) });
-      }
-      const normalizing = s.normalize !== 'none';
-      if (normalizing && lv.reference_uv === null) {
-        findings.push({ severity: 'error', code: 'no-reference', where, message: findingText.noReference(ch.signal, s.normalize) });
-      }
-      const env = !normalizing ? p.env : lv.reference_uv === null ? p.env.map(() => NaN) : normalizeEnvelope(p.env, lv.reference_uv);
-
-      // The gap threshold in the envelope's unit.
-      let threshold = study.gapThreshold.value;
-      if (study.gapThreshold.convertPerWorker) {
-        if (lv.mve_uv !== null && lv.reference_uv !== null && lv.mve_uv > 0) {
-          threshold = thresholdToRve(study.gapThreshold.value, rveOverMve(lv.reference_uv, lv.mve_uv));
-        } else {
-          threshold = NaN;
-          findings.push({ severity: 'error', code: 'threshold-not-converted', where, message: findingText.thresholdNotConverted(ch.signal) });
-        }
-      }
-
-      const segs = [...rec.segments.map((sg) => ({ label: sg.label, start_s: sg.start_s, end_s: sg.end_s })),
-        { label: 'all', start_s: 0, end_s: rec.duration_s }];
-      let maxP90 = -Infinity;
-      for (const sg of segs) {
-        const i0 = Math.max(0, Math.ceil(sg.start_s * rate - 1e-9));
-        const i1 = Math.min(env.length, Math.ceil(sg.end_s * rate - 1e-9));
-        const slice = env.subarray(i0, Math.max(i0, i1));
-        if (sg.end_s - sg.start_s < s.rms_window_s) {
-          findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.end_s - sg.start_s, s.rms_window_s) });
-        }
-        const m = Number.isFinite(threshold)
-          ? segmentMeasures(slice, {
-            rate_hz: rate, percentiles: s.percentiles, gap_threshold: threshold, min_gap_s: s.gap_min_s,
-            max_gap_s: s.gap_max_s, rest_counts: s.rest_counts, sustained_threshold: threshold, sustained_min_s: s.sustained_min_s,
-          })
-          : null;
-        const levelsOf = m ? m.levels : Object.fromEntries(s.percentiles.map((q) => [`p${q}`, null]));
-        const valid_s = m ? m.valid_s : 0;
-        const row = {
+        const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
+        references.push({
           worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
-          segment: sg.label, start_s: sg.start_s, end_s: sg.end_s, valid_s, unit,
-          reference_uv: lv.reference_uv, noise_uv: lv.noise_uv,
-          ...levelsOf,
-          gap_threshold: threshold,
-          gaps: m ? m.gaps : 0,
-          gaps_per_min: m ? m.gaps_per_min : null,
-          rest_pct: m ? m.rest_pct : null,
-          longest_without_gap_s: m ? m.longest_without_gap_s : null,
-          sustained_pct: m ? m.sustained_pct : null,
-        } as ResultRow;
-        rows.push(row);
-        const excluded = sg.end_s - sg.start_s - valid_s;
-        if (m && excluded > Math.max(1 / rate, 0.01 * (sg.end_s - sg.start_s))) {
-          findings.push({ severity: 'info', code: 'excluded-time', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.excludedTime(sg.label, excluded, sg.end_s - sg.start_s) });
+          method: s.normalize, reference_uv: lv.reference_uv, noise_uv: lv.noise_uv, mve_uv: lv.mve_uv,
+          spans: rec.reference.map((sp) => ({ file: sp.fileAsWritten, start_s: sp.start_s, end_s: sp.end_s, annotation: sp.annotation })),
+        });
+        if (p.clipped > 0) {
+          findings.push({ severity: 'warning', code: 'clipping', where, message: findingText.clipping(p.clipped, p.samples) });
         }
-        const p90 = (row as unknown as Record<string, number | null>)[`p${Math.max(...s.percentiles)}`];
-        if (typeof p90 === 'number' && p90 > maxP90) maxP90 = p90;
-        if (slice.length > 0) {
-          const e = evaMatrix(slice, { rate_hz: rate, amplitude_edges: s.eva.amplitude_edges, duration_edges_s: s.eva.duration_edges_s });
-          eva.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, amplitude_edges: e.amplitude_edges, duration_edges_s: e.duration_edges_s, percent_time: e.percent_time });
-          apdf.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, levels: apdfCurve(slice) });
+        const normalizing = s.normalize !== 'none';
+        if (normalizing && lv.reference_uv === null) {
+          findings.push({ severity: 'error', code: 'no-reference', where, message: findingText.noReference(ch.signal, s.normalize) });
         }
+        const env = !normalizing ? p.env : lv.reference_uv === null ? p.env.map(() => NaN) : normalizeEnvelope(p.env, lv.reference_uv);
+
+        // The gap threshold in the envelope's unit.
+        let threshold = study.gapThreshold.value;
+        if (study.gapThreshold.convertPerWorker) {
+          if (lv.mve_uv !== null && lv.reference_uv !== null && lv.mve_uv > 0) {
+            threshold = thresholdToRve(study.gapThreshold.value, rveOverMve(lv.reference_uv, lv.mve_uv));
+          } else {
+            threshold = NaN;
+            findings.push({ severity: 'error', code: 'threshold-not-converted', where, message: findingText.thresholdNotConverted(ch.signal) });
+          }
+        }
+
+        // One row per task label: every occurrence of the label is joined, with a NaN between
+        // occurrences so that no gap, run or EVA period spans two of them.
+        const tasks = groupSegments(rec.segments, rec.duration_s);
+        let maxP90 = -Infinity;
+        for (const sg of tasks) {
+          const slice = joinSlices(env, rate, sg.spans);
+          if (sg.shortest_s < s.rms_window_s) {
+            findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.shortest_s, s.rms_window_s) });
+          }
+          const m = Number.isFinite(threshold)
+            ? segmentMeasures(slice, {
+              rate_hz: rate, percentiles: s.percentiles, gap_threshold: threshold, min_gap_s: s.gap_min_s,
+              max_gap_s: s.gap_max_s, rest_counts: s.rest_counts, sustained_threshold: threshold, sustained_min_s: s.sustained_min_s,
+            })
+            : null;
+          const levelsOf = m ? m.levels : Object.fromEntries(s.percentiles.map((q) => [`p${q}`, null]));
+          const valid_s = m ? m.valid_s : 0;
+          const row = {
+            worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
+            segment: sg.label, start_s: sg.start_s, end_s: sg.end_s, segments: sg.spans.length, segment_s: sg.total_s, valid_s, unit,
+            reference_uv: lv.reference_uv, noise_uv: lv.noise_uv,
+            ...levelsOf,
+            gap_threshold: threshold,
+            gaps: m ? m.gaps : 0,
+            gaps_per_min: m ? m.gaps_per_min : null,
+            rest_pct: m ? m.rest_pct : null,
+            longest_without_gap_s: m ? m.longest_without_gap_s : null,
+            sustained_pct: m ? m.sustained_pct : null,
+          } as ResultRow;
+          rows.push(row);
+          const excluded = sg.total_s - valid_s;
+          if (m && excluded > Math.max(sg.spans.length / rate, 0.01 * sg.total_s)) {
+            findings.push({ severity: 'info', code: 'excluded-time', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.excludedTime(sg.label, excluded, sg.total_s) });
+          }
+          const p90 = (row as unknown as Record<string, number | null>)[`p${Math.max(...s.percentiles)}`];
+          if (typeof p90 === 'number' && p90 > maxP90) maxP90 = p90;
+          if (slice.length > 0) {
+            const e = evaMatrix(slice, { rate_hz: rate, amplitude_edges: s.eva.amplitude_edges, duration_edges_s: s.eva.duration_edges_s });
+            eva.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, amplitude_edges: e.amplitude_edges, duration_edges_s: e.duration_edges_s, percent_time: e.percent_time });
+            apdf.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, levels: apdfCurve(slice) });
+          }
+        }
+        if ((unit === '%MVE') && maxP90 > 100) {
+          findings.push({ severity: 'warning', code: 'reference-weak', where, message: findingText.referenceWeak(ch.signal, maxP90) });
+        }
+        const tr = decimateTrace(env, rate, s.trace_step_s);
+        traces.push({
+          worker: worker.id, condition: rec.condition, muscle: ch.muscle, recording: rec.fileAsWritten, unit,
+          step_s: tr.step_s, mean: tr.mean, max: tr.max,
+          segments: rec.segments.map((sg) => ({ label: sg.label, start_s: sg.start_s, end_s: sg.end_s })),
+        });
       }
-      if ((unit === '%MVE') && maxP90 > 100) {
-        findings.push({ severity: 'warning', code: 'reference-weak', where, message: findingText.referenceWeak(ch.signal, maxP90) });
-      }
-      const tr = decimateTrace(env, rate, s.trace_step_s);
-      traces.push({
-        worker: worker.id, condition: rec.condition, muscle: ch.muscle, recording: rec.fileAsWritten, unit,
-        step_s: tr.step_s, mean: tr.mean, max: tr.max,
-        segments: rec.segments.map((sg) => ({ label: sg.label, start_s: sg.start_s, end_s: sg.end_s })),
-      });
     }
+
+  } finally {
+    await pool.close();
   }
 
   async function referenceLevel(spans: StudySpan[], c: number, method: 'mve' | 'rve', correct: (v: number) => number): Promise<number | null> {
@@ -281,14 +309,14 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   }
 
   // Every input file with its fingerprint.
-  const files = new Map<string, string>();
+  const files = new Map<string, { shown: string; rate_hz: number | null }>();
   for (const w of study.workers) for (const r of w.recordings) {
-    files.set(r.file, r.fileAsWritten);
-    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, sp.fileAsWritten);
+    files.set(r.file, { shown: r.fileAsWritten, rate_hz: r.rate_hz });
+    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, { shown: sp.fileAsWritten, rate_hz: sp.rate_hz });
   }
   const inputs: StudyResults['inputs'] = [];
-  for (const [abs, shown] of files) {
-    const rec = await openRecording(abs);
+  for (const [abs, { shown, rate_hz }] of files) {
+    const rec = await openRecording(abs, openOptions(rate_hz));
     const duration_s = rec.info.duration_s;
     await rec.close();
     inputs.push({ file: shown, sha256: await sha256File(abs), duration_s });
@@ -328,4 +356,55 @@ function studyInfo(study: Study): NonNullable<StudyResults['study']> {
   for (const w of study.workers) for (const r of w.recordings) for (const sg of r.segments) if (!order.includes(sg.label)) order.push(sg.label);
   info.segment_order = order;
   return info;
+}
+
+/** A task: every segment with one label, in time order. */
+interface TaskSpans {
+  label: string;
+  spans: { start_s: number; end_s: number }[];
+  start_s: number;
+  end_s: number;
+  total_s: number;
+  shortest_s: number;
+}
+
+/** Group segments by label (first appearance order), then add the whole recording as 'all'. */
+export function groupSegments(segments: readonly { label: string; start_s: number; end_s: number }[], duration_s: number): TaskSpans[] {
+  const byLabel = new Map<string, TaskSpans>();
+  for (const sg of segments) {
+    let t = byLabel.get(sg.label);
+    if (!t) { t = { label: sg.label, spans: [], start_s: sg.start_s, end_s: sg.end_s, total_s: 0, shortest_s: Infinity }; byLabel.set(sg.label, t); }
+    t.spans.push({ start_s: sg.start_s, end_s: sg.end_s });
+    t.start_s = Math.min(t.start_s, sg.start_s);
+    t.end_s = Math.max(t.end_s, sg.end_s);
+    t.total_s += sg.end_s - sg.start_s;
+    t.shortest_s = Math.min(t.shortest_s, sg.end_s - sg.start_s);
+  }
+  const tasks = [...byLabel.values()];
+  tasks.push({ label: 'all', spans: [{ start_s: 0, end_s: duration_s }], start_s: 0, end_s: duration_s, total_s: duration_s, shortest_s: duration_s });
+  return tasks;
+}
+
+/**
+ * The envelope samples of several spans joined into one array, one NaN between spans (NaN is
+ * excluded time: it breaks gaps, runs and EVA periods, and adds no valid time). Envelope sample k
+ * lies at k / rate s; a span [a, b) takes the samples with a ≤ k / rate < b.
+ */
+export function joinSlices(env: Float64Array, rate: number, spans: readonly { start_s: number; end_s: number }[]): Float64Array {
+  const bounds = spans.map((sp) => {
+    const i0 = Math.min(env.length, Math.max(0, Math.ceil(sp.start_s * rate - 1e-9)));
+    const i1 = Math.min(env.length, Math.max(i0, Math.ceil(sp.end_s * rate - 1e-9)));
+    return [i0, i1] as const;
+  });
+  if (bounds.length === 1) return env.subarray(bounds[0]![0], bounds[0]![1]);
+  let n = bounds.length - 1;
+  for (const [a, b] of bounds) n += b - a;
+  const out = new Float64Array(n);
+  let o = 0;
+  bounds.forEach(([a, b], i) => {
+    if (i > 0) out[o++] = NaN;
+    out.set(env.subarray(a, b), o);
+    o += b - a;
+  });
+  return out;
 }

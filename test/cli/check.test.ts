@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { bufferIO } from '../../lib/cli/cli-io.js';
-import { checkCommand } from '../../lib/cli/check.js';
+import { checkCommand, formatDuration } from '../../lib/cli/check.js';
 import { main } from '../../lib/cli/main.js';
 import { jobTemplateText } from '../../lib/cli/init.js';
 import { JobValidationError } from '../../lib/job/job-validation-error.js';
@@ -14,6 +14,14 @@ async function runCheck(job: string, json = false) {
   return io;
 }
 
+describe('formatDuration(seconds)', () => {
+  it('formatDuration() picks s, min or h', () => {
+    expect(formatDuration(10)).toBe('10 s');
+    expect(formatDuration(750)).toBe('12.5 min');
+    expect(formatDuration(27000)).toBe('7.50 h');
+  });
+});
+
 describe('shiftload check JOB', () => {
   it('check prints counts and hours of a valid job', async () => {
     const { job } = jobFolder(jobTemplateText());
@@ -22,6 +30,7 @@ describe('shiftload check JOB', () => {
     expect(io.stdout).toContain('1 worker(s), 2 recording(s), 4 channel(s), 4 segment(s)');
     // 2 × 3600 s recorded = 2.00 h; segments 3600 s + 2000 s = 1.56 h (invented fake recordings)
     expect(io.stdout).toContain('recorded 2.00 h, in segments 1.56 h');
+    expect(io.stdout).toContain('W1  w1-bench-b.edf  bench-b  2 ch  2 seg  1.00 h recorded, 33.3 min in segments');
     expect(io.stdout).toContain('Gap threshold 0.5 %MVE.');
   });
 

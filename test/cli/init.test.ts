@@ -1,4 +1,4 @@
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -53,5 +53,29 @@ describe('shiftload init [dir]', () => {
   it('the template shows every setting with its default value', () => {
     const parsed = parseYamlWithLines(jobTemplateText(), 'job-template.yaml').value as { settings: unknown };
     expect(parsed.settings).toEqual(JSON.parse(JSON.stringify(DEFAULTS)));
+  });
+});
+
+describe('shiftload init, then check, on real EDF+ files', () => {
+  it('the template checks out against EDF+ recordings written with the names it uses', async () => {
+    const { EdfWriter } = await import('../../lib/io/edf-writer.js');
+    const dir = freshDir();
+    await main(['init', dir], bufferIO());
+    const signals = ['EMG R trapezius', 'EMG L trapezius'].map((label) => ({ label, unit: 'uV', rate_hz: 1000, physical_min: -1000, physical_max: 1000 }));
+    // invented recordings: zeros, only the header facts matter here
+    const write = (name: string, seconds: number, annotations: { onset_s: number; duration_s: number | null; text: string }[] = []) => {
+      const w = new EdfWriter(join(dir, name), signals, { record_duration_s: 1, annotations });
+      const block = new Float64Array(60_000);
+      for (let s = 0; s < seconds; s += 60) w.write([block, block]);
+      w.close();
+    };
+    write('w1-ref.edf', 120);
+    write('w1-bench-a.edf', 3600);
+    write('w1-bench-b.edf', 3600, [{ onset_s: 0, duration_s: 1200, text: 'task: sorting' }, { onset_s: 1200, duration_s: 1500, text: 'task: packing' }]);
+    const io = bufferIO();
+    expect(await main(['check', join(dir, 'job.yaml')], io)).toBe(0);
+    expect(io.stdout).toContain('1 worker(s), 2 recording(s), 4 channel(s), 4 segment(s)');
+    expect(io.stdout).toContain('recorded 2.00 h, in segments 1.75 h');
+    rmSync(dir, { recursive: true, force: true });
   });
 });

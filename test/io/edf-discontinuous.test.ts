@@ -65,3 +65,28 @@ describe('openRecording(EDF+D)', () => {
     expect(got).toEqual([...Array.from({ length: 150 }, (_, i) => 150 + i), ...Array.from({ length: 50 }, (_, i) => 300 + i)]);
   });
 });
+
+describe('shiftload convert of EDF+D', () => {
+  it('convert --format csv keeps the clock times across the gap; --format edf fills the gap', async () => {
+    const { main } = await import('../../lib/cli/main.js');
+    const { bufferIO } = await import('../../lib/cli/cli-io.js');
+    const path = makeD();
+    const csv = join(dir, 'd.csv');
+    expect(await main(['convert', path, '--format', 'csv', '-o', csv], bufferIO())).toBe(0);
+    const rows = readFileSync(csv, 'utf8').trimEnd().split('\n').slice(1).map((l) => l.split(',').map(Number));
+    expect(rows.length).toBe(600);
+    expect(rows[299]).toEqual([2.99, 299]);
+    expect(rows[300]).toEqual([7, 300]);
+    const edf = join(dir, 'c.edf');
+    expect(await main(['convert', path, '--format', 'edf', '-o', edf], bufferIO())).toBe(0);
+    const rec = await openRecording(edf);
+    expect(rec.info.format).toBe('EDF+C');
+    expect(rec.info.duration_s).toBe(10);
+    const v: number[] = [];
+    for await (const c of rec.read({ signals: [0] })) v.push(...c.data[0]);
+    await rec.close();
+    expect(v.slice(295, 305).map(Math.round)).toEqual([295, 296, 297, 298, 299, 0, 0, 0, 0, 0]);
+    expect(Math.round(v[700])).toBe(300);
+    expect(Math.round(v[999])).toBe(599);
+  });
+});

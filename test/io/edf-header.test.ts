@@ -83,3 +83,46 @@ describe('openRecording(broken EDF)', () => {
     expect((await refusal(join(tmp, 'x.dat'))).message).toMatch(/unknown recording format/);
   });
 });
+
+describe('openRecording(EDF+ with a bad annotation)', () => {
+  it('a TAL whose onset is not a number is refused naming the record and byte', async () => {
+    const { EdfWriter } = await import('../../lib/io/edf-writer.js');
+    const p = join(tmp, 'tal.edf');
+    const w = new EdfWriter(p, [{ label: 'A', unit: 'uV', rate_hz: 10, physical_min: -1, physical_max: 1 }], { annotations: [{ onset_s: 1.5, duration_s: null, text: 'lift' }] });
+    w.write([new Float64Array(30)]);
+    w.close();
+    const b = Buffer.from(readFileSync(p));
+    const at = b.indexOf('+1.5\x14lift', 0, 'latin1');
+    expect(at).toBeGreaterThan(0);
+    b.write('x', at, 'latin1');
+    writeFileSync(p, b);
+    const e = await refusal(p);
+    expect(e.message).toBe(`${p}: annotation in data record 2 (byte ${at}): onset 'x1.5' is not a signed number of seconds`);
+  });
+  it('a record without a time-keeping TAL is refused', async () => {
+    const { EdfWriter } = await import('../../lib/io/edf-writer.js');
+    const p = join(tmp, 'tk.edf');
+    const w = new EdfWriter(p, [{ label: 'A', unit: 'uV', rate_hz: 10, physical_min: -1, physical_max: 1 }]);
+    w.write([new Float64Array(30)]);
+    w.close();
+    const b = Buffer.from(readFileSync(p));
+    const at = b.indexOf('+2\x14\x14\x00', 0, 'latin1');
+    b.fill(0, at, at + 5);
+    writeFileSync(p, b);
+    expect((await refusal(p)).message).toMatch(/data record 3 \(byte \d+\) has no time-keeping annotation/);
+  });
+});
+
+describe('openRecording(EDF+C whose records jump)', () => {
+  it('is refused naming the record: a discontinuous file must say EDF+D', async () => {
+    const { EdfWriter } = await import('../../lib/io/edf-writer.js');
+    const p = join(tmp, 'jump.edf');
+    const w = new EdfWriter(p, [{ label: 'A', unit: 'uV', rate_hz: 10, physical_min: -1, physical_max: 1 }]);
+    w.write([new Float64Array(40)]);
+    w.close();
+    const b = Buffer.from(readFileSync(p));
+    b.write('+5', b.indexOf('+2\x14\x14\x00', 0, 'latin1'), 'latin1');
+    writeFileSync(p, b);
+    expect((await refusal(p)).message).toMatch(/data record 3 \(byte \d+\) starts at 5 s by its time-keeping annotation, expected 2 s/);
+  });
+});

@@ -84,7 +84,7 @@ describe('loadJob(path) on a valid job', () => {
       { label: 'sorting', start_s: 0, end_s: 1800, source: 'job' },
       { label: 'packing', start_s: 1800, end_s: 3600, source: 'job' },
     ]);
-    expect(a.reference).toEqual([{ file: join(dir, 'w1-ref.edf'), fileAsWritten: 'w1-ref.edf', start_s: 0, end_s: 30, annotation: null, signalIndices: [0] }]);
+    expect(a.reference).toEqual([{ file: join(dir, 'w1-ref.edf'), fileAsWritten: 'w1-ref.edf', rate_hz: null, start_s: 0, end_s: 30, annotation: null, signalIndices: [0] }]);
     expect(a.rest[0]).toMatchObject({ start_s: 40, end_s: 70 });
     // muscle defaults to the signal label; annotations with a duration become segments
     expect(b.channels[0].muscle).toBe('EMG R trapezius');
