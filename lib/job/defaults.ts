@@ -1,5 +1,6 @@
 // Every analysis setting of a job file, its one default, its unit and its meaning. The schema
 // (job-schema.ts), the template, the loader and the report's methods section all read from here.
+import { QUALITY_DEFAULTS, type QualitySettings } from '../quality/defaults.js';
 
 /** Normalization method: what 100 % of the normalized envelope means. */
 export type NormalizeMethod = 'mve' | 'rve' | 'task-peak' | 'none';
@@ -131,6 +132,12 @@ export interface Settings {
    * @default 10
    */
   trace_step_s: number;
+  /**
+   * Signal-quality screening thresholds and `exclude` (lib/quality/defaults.ts, one row per key in
+   * QUALITY_SETTINGS_TABLE). As written in a job it may be partial: use resolveQualitySettings().
+   * @default QUALITY_DEFAULTS
+   */
+  quality: QualitySettings;
 }
 
 /** The one default of every setting. Frozen: copy before changing. */
@@ -155,6 +162,7 @@ export const DEFAULTS: Readonly<Settings> = deepFreeze({
   percentiles: [10, 50, 90],
   eva: { amplitude_edges: [0, 1, 5, 10, 20, 30], duration_edges_s: [0, 1, 3, 7, 15, 31, 63] },
   trace_step_s: 10,
+  quality: QUALITY_DEFAULTS,
 } as Settings);
 
 function deepFreeze<T>(o: T): T {
@@ -205,4 +213,5 @@ export const SETTINGS_TABLE: readonly SettingDescription[] = Object.freeze([
   { key: 'eva.amplitude_edges', value: DEFAULTS.eva.amplitude_edges, unit: 'normalized unit', meaning: 'EVA amplitude class edges; classes [a, b), the last open above.', source: 'illustrative (from memory), Mathiassen & Winkel 1991' },
   { key: 'eva.duration_edges_s', value: DEFAULTS.eva.duration_edges_s, unit: 's', meaning: 'EVA duration class edges; classes [a, b), the last open above.', source: 'illustrative (from memory), Mathiassen & Winkel 1991' },
   { key: 'trace_step_s', value: DEFAULTS.trace_step_s, unit: 's', meaning: 'Step of the decimated envelope traces drawn in the report.', source: 'tool choice' },
+  { key: 'quality', value: DEFAULTS.quality, unit: '', meaning: 'Signal-quality screening: thresholds of each check and exclude (leave unusable spans out of the statistics); every key is listed with its unit and source in QUALITY_SETTINGS_TABLE (lib/quality/defaults.ts).', source: 'tool choices, see lib/quality/defaults.ts' },
 ]);

@@ -2,6 +2,7 @@
 // editors can validate and complete job.yaml; the loader validates against the same object.
 // Defaults shown here are read from DEFAULTS, so the two cannot drift apart.
 import { DEFAULTS } from './defaults.js';
+import { qualitySchema } from '../quality/quality-schema.js';
 
 /** The value of `format` this version reads. */
 export const JOB_FORMAT = 'shiftload-job/1';
@@ -166,6 +167,7 @@ const settings = {
       },
     },
     trace_step_s: { type: 'number', exclusiveMinimum: 0, title: 'Trace step, s', description: `Step of the decimated envelope traces in the report, s. Default ${DEFAULTS.trace_step_s}.`, default: DEFAULTS.trace_step_s },
+    quality: qualitySchema,
   },
 };
 
