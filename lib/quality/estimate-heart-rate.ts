@@ -66,7 +66,7 @@ export function estimateHeartRate(bins: Float64Array, n: number, options: HeartR
   // Spike enhancement: excess over a running median (window 2·half+1, shrinking at the ends).
   // The median is evaluated every `stride` bins and interpolated linearly in between (the
   // baseline is smooth at that scale; a sort per bin was most of the tap's time).
-  const stride = Math.max(1, Math.floor(half / 4));
+  const stride = Math.max(1, Math.floor(half / 2));
   const points = Math.ceil((n - 1) / stride) + 1;
   const med = scratch.medians(points);
   for (let j = 0; j < points; j++) {

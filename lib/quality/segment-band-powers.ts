@@ -34,6 +34,8 @@ export class SegmentBandPowers {
   private readonly spec: Float64Array;
   private readonly pow: Float64Array;
   private readonly acc: Float64Array;
+  private readonly accLo: number;
+  private readonly accHi: number;
   /** Segments added since the last reset. */
   count = 0;
   private absLow = 0;
@@ -64,11 +66,14 @@ export class SegmentBandPowers {
       const c: number[] = [];
       for (let h = 1; h <= o.mains_harmonics; h++) {
         const k = Math.round((h * f) / df);
-        if (h * f <= hiHz && k - 12 >= 1 && k + 12 <= n / 2) c.push(k);
+        if (h * f >= o.band_hz[0] && h * f <= hiHz && k - 12 >= 1 && k + 12 <= n / 2) c.push(k);
       }
       return Int32Array.from(c);
     });
     this.width = 2 + o.mains_hz.length;
+    // bins that compute() reads from the normalized average: the band and 12 bins beyond
+    this.accLo = Math.max(0, this.bandLo - 12);
+    this.accHi = Math.min(n / 2 + 1, this.bandHi + 13);
   }
 
   /** Add the periodogram of segment x[0..nperseg) (not modified); a segment holding NaN is skipped. */
@@ -89,7 +94,10 @@ export class SegmentBandPowers {
     this.absBand += band;
     // the mains test uses the average of band-normalized periodograms: every segment counts
     // equally, so a loud burst in one segment does not leave the average with few degrees of freedom
-    if (band > 0) for (let k = 0; k <= n / 2; k++) acc[k] += p[k] / band;
+    if (band > 0) {
+      const inv = 1 / band;
+      for (let k = this.accLo; k < this.accHi; k++) acc[k] += p[k] * inv;
+    }
     this.count++;
   }
 
@@ -108,7 +116,7 @@ export class SegmentBandPowers {
    */
   compute(out: Float64Array): void {
     const n = this.n, p = this.pow, c = Math.max(1, this.count);
-    for (let k = 0; k <= n / 2; k++) p[k] = this.acc[k] / c;
+    for (let k = this.accLo; k < this.accHi; k++) p[k] = this.acc[k] / c;
     let band = 0;
     for (let k = this.bandLo; k <= this.bandHi; k++) band += p[k];
     out[BAND.low] = this.absLow / c;
