@@ -105,9 +105,9 @@ function benchJob(file: string, duration_s: number): string {
   return join(dir, 'job.yaml');
 }
 
-benchCases.push({
-  name: 'analyze',
-  describe: 'shiftload analyze: zero-phase 30–400 Hz band-pass, 0.1-s RMS at 20 Hz, MVE from 60 s, 3 task segments (results only)',
+for (const jobs of [1, 2]) benchCases.push({
+  name: jobs === 1 ? 'analyze' : `analyze-j${jobs}`,
+  describe: `shiftload analyze --jobs ${jobs}: zero-phase 30–400 Hz band-pass, 0.1-s RMS at 20 Hz, MVE from 60 s, 3 task segments (results only)`,
   async run(file) {
     const { bytes, samples } = await fileInfo(file);
     const rec = await openRecording(file);
@@ -116,7 +116,6 @@ benchCases.push({
     const jobPath = benchJob(file, duration);
     try {
       const study = await loadJob(jobPath);
-      const jobs = Number(process.env.SHIFTLOAD_BENCH_JOBS ?? '1');
       const res = await runStudy(study, { jobs });
       const p50 = res.rows.filter((r) => r.segment === 'task-a').map((r) => (r.p50 ?? NaN).toFixed(3)).join('/');
       return { bytes, samples, check: `rows=${res.rows.length} task-a p50=${p50}` };

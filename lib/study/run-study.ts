@@ -112,11 +112,13 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   }
 
   // Field recordings: with worker threads every recording is queued at once (the pool runs
-  // `jobs` of them at a time); inline, each is read when its turn comes.
+  // `jobs` of them at a time) and its channels are split into up to `jobs` groups, so that even a
+  // single long recording keeps every core busy (each group reads the file itself; reading is
+  // cheap next to filtering). Inline, each recording is read when its turn comes.
   const jobs = Math.max(1, Math.floor(options.jobs ?? 1));
   const pool = new RecordingPool(jobs > 1 ? jobs : 0);
-  const recordingJob = (rec: StudyRecording): RecordingJob => ({
-    file: rec.file, signals: rec.channels.map((ch) => ch.signalIndex), filter,
+  const recordingJob = (rec: StudyRecording, channels: number[]): RecordingJob => ({
+    file: rec.file, signals: channels.map((c) => rec.channels[c]!.signalIndex), filter,
     envelope: { window_s: s.rms_window_s, rate_hz: rate },
     second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
     open: openOptions(rec.rate_hz),
@@ -124,7 +126,9 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   const queued = new Map<string, Promise<RecordingJobResult>>();
   if (jobs > 1) {
     for (const w of study.workers) for (const rec of w.recordings) {
-      const p = pool.run(recordingJob(rec));
+      const groups = channelGroups(rec.channels.length, jobs);
+      const parts = groups.map((g) => pool.run(recordingJob(rec, g)));
+      const p = Promise.all(parts).then((rs) => mergeGroups(rs, groups));
       p.catch(() => { /* awaited (and reported) in order below */ });
       queued.set(rec.id, p);
     }
@@ -167,7 +171,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
 
         // The field recording: one streaming pass for all its channels.
         const base = done;
-        const res = await (queued.get(rec.id) ?? pool.run(recordingJob(rec), (d) => progress(base + d, rec.fileAsWritten)));
+        const res = await (queued.get(rec.id) ?? pool.run(recordingJob(rec, rec.channels.map((_, c) => c)), (d) => progress(base + d, rec.fileAsWritten)));
         done = base + rec.duration_s;
         progress(done, rec.fileAsWritten);
         if (res.discontinuities > 0) {
@@ -407,4 +411,22 @@ export function joinSlices(env: Float64Array, rate: number, spans: readonly { st
     o += b - a;
   });
   return out;
+}
+
+/** Split channel indices 0…n−1 into at most `k` contiguous groups of near-equal size. */
+export function channelGroups(n: number, k: number): number[][] {
+  const g = Math.max(1, Math.min(n, k));
+  const out: number[][] = [];
+  for (let i = 0; i < g; i++) {
+    const a = Math.floor((i * n) / g), b = Math.floor(((i + 1) * n) / g);
+    out.push(Array.from({ length: b - a }, (_, j) => a + j));
+  }
+  return out;
+}
+
+/** Put the results of channel groups back into one result in channel order. */
+function mergeGroups(parts: RecordingJobResult[], groups: number[][]): RecordingJobResult {
+  const channels: RecordingJobResult['channels'] = [];
+  parts.forEach((r, i) => groups[i]!.forEach((c, j) => { channels[c] = r.channels[j]!; }));
+  return { channels, start_s: parts[0]!.start_s, end_s: parts[0]!.end_s, discontinuities: parts[0]!.discontinuities };
 }
