@@ -272,7 +272,30 @@ export const reportMsg = {
 };
 
 // ---------------------------------------------------------------------------------------------
-<<<<<<< HEAD
+// fatigue: spectral epochs, trends and JASA
+// ---------------------------------------------------------------------------------------------
+
+export const fatigueMsg = {
+  epochTooShort: (epochS: number, fs: number) => `spectral epoch must hold at least 16 samples (epoch_s × fs; fs=${fs} Hz), got epoch_s=${epochS}`,
+  band: (lo: number, hi: number, fs: number) => `spectral band must satisfy 0 ≤ low < high ≤ fs/2 (fs=${fs} Hz → ${fs / 2} Hz), got [${lo}, ${hi}] Hz`,
+};
+
+/** Texts written into the fatigue results (lib/exposure/fatigue-blocks.ts). */
+export const fatigueText = {
+  activeRule: (thresholdPct: number | null, unit: string, noiseFactor: number | null, noiseUv: number | null) => {
+    const parts: string[] = [];
+    if (thresholdPct !== null) parts.push(`noise-corrected RMS ≥ ${thresholdPct} ${unit}`);
+    if (noiseFactor !== null && noiseUv !== null) parts.push(`RMS ≥ ${noiseFactor} × the noise RMS (${(noiseFactor * noiseUv).toPrecision(3)} µV)`);
+    return parts.length === 0 ? 'every epoch with a non-zero RMS (no reference and no noise level to judge rest)' : `epochs with ${parts.join(' and ')}`;
+  },
+  method: (epochS: number, nfft: string, band: [number, number], blockS: number) =>
+    `EMG cut into ${epochS}-s epochs; per epoch the RMS and, from one Hann-windowed FFT (${nfft}), the mean and median power frequency over ${band[0]}–${band[1]} Hz. `
+    + `Over each ${blockS / 60}-min block and each task segment, amplitude and MNF are regressed on time (least squares, 95 % t intervals); `
+    + 'a trend counts only when its interval excludes zero. JASA categories after Luttmann et al. 2000. '
+    + 'The categories describe the EMG of the muscle, not an individual\'s fatigue state, injury risk or a diagnosis.',
+};
+
+// ---------------------------------------------------------------------------------------------
 // quality: signal-quality screening (lib/quality)
 // ---------------------------------------------------------------------------------------------
 
@@ -306,27 +329,4 @@ export const qualityMsg = {
   lowSnr: (signal: string, snrDb: number, limitDb: number, task: number, noise: number) =>
     `${signal}: low signal-to-noise ratio ${Number.isFinite(snrDb) ? snrDb.toFixed(1) : '−∞'} dB (limit ${limitDb} dB): task RMS ${task.toPrecision(3)} µV against a noise level of ${noise.toPrecision(3)} µV; low-level figures (rest, gaps, static load) are uncertain`,
   settingRange: (key: string, range: string, got: unknown) => `quality.${key} must be ${range}, got ${JSON.stringify(got)}`,
-=======
-// fatigue: spectral epochs, trends and JASA
-// ---------------------------------------------------------------------------------------------
-
-export const fatigueMsg = {
-  epochTooShort: (epochS: number, fs: number) => `spectral epoch must hold at least 16 samples (epoch_s × fs; fs=${fs} Hz), got epoch_s=${epochS}`,
-  band: (lo: number, hi: number, fs: number) => `spectral band must satisfy 0 ≤ low < high ≤ fs/2 (fs=${fs} Hz → ${fs / 2} Hz), got [${lo}, ${hi}] Hz`,
-};
-
-/** Texts written into the fatigue results (lib/exposure/fatigue-blocks.ts). */
-export const fatigueText = {
-  activeRule: (thresholdPct: number | null, unit: string, noiseFactor: number | null, noiseUv: number | null) => {
-    const parts: string[] = [];
-    if (thresholdPct !== null) parts.push(`noise-corrected RMS ≥ ${thresholdPct} ${unit}`);
-    if (noiseFactor !== null && noiseUv !== null) parts.push(`RMS ≥ ${noiseFactor} × the noise RMS (${(noiseFactor * noiseUv).toPrecision(3)} µV)`);
-    return parts.length === 0 ? 'every epoch with a non-zero RMS (no reference and no noise level to judge rest)' : `epochs with ${parts.join(' and ')}`;
-  },
-  method: (epochS: number, nfft: string, band: [number, number], blockS: number) =>
-    `EMG cut into ${epochS}-s epochs; per epoch the RMS and, from one Hann-windowed FFT (${nfft}), the mean and median power frequency over ${band[0]}–${band[1]} Hz. `
-    + `Over each ${blockS / 60}-min block and each task segment, amplitude and MNF are regressed on time (least squares, 95 % t intervals); `
-    + 'a trend counts only when its interval excludes zero. JASA categories after Luttmann et al. 2000. '
-    + 'The categories describe the EMG of the muscle, not an individual\'s fatigue state, injury risk or a diagnosis.',
->>>>>>> main
 };

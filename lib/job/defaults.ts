@@ -1,10 +1,7 @@
 // Every analysis setting of a job file, its one default, its unit and its meaning. The schema
 // (job-schema.ts), the template, the loader and the report's methods section all read from here.
-<<<<<<< HEAD
-import { QUALITY_DEFAULTS, type QualitySettings } from '../quality/defaults.js';
-=======
 import { FATIGUE_DEFAULTS, type FatigueSettings } from '../exposure/fatigue-settings.js';
->>>>>>> main
+import { QUALITY_DEFAULTS, type QualitySettings } from '../quality/defaults.js';
 
 /** Normalization method: what 100 % of the normalized envelope means. */
 export type NormalizeMethod = 'mve' | 'rve' | 'task-peak' | 'none';
@@ -137,18 +134,16 @@ export interface Settings {
    */
   trace_step_s: number;
   /**
-<<<<<<< HEAD
+   * Fatigue over the shift: spectral epochs, amplitude and MNF trends per block and task segment,
+   * JASA categories (lib/exposure/fatigue-settings.ts has every key's meaning and default).
+   */
+  fatigue: FatigueSettings;
+  /**
    * Signal-quality screening thresholds and `exclude` (lib/quality/defaults.ts, one row per key in
    * QUALITY_SETTINGS_TABLE). As written in a job it may be partial: use resolveQualitySettings().
    * @default QUALITY_DEFAULTS
    */
   quality: QualitySettings;
-=======
-   * Fatigue over the shift: spectral epochs, amplitude and MNF trends per block and task segment,
-   * JASA categories (lib/exposure/fatigue-settings.ts has every key's meaning and default).
-   */
-  fatigue: FatigueSettings;
->>>>>>> main
 }
 
 /** The one default of every setting. Frozen: copy before changing. */
@@ -173,11 +168,8 @@ export const DEFAULTS: Readonly<Settings> = deepFreeze({
   percentiles: [10, 50, 90],
   eva: { amplitude_edges: [0, 1, 5, 10, 20, 30], duration_edges_s: [0, 1, 3, 7, 15, 31, 63] },
   trace_step_s: 10,
-<<<<<<< HEAD
-  quality: QUALITY_DEFAULTS,
-=======
   fatigue: { ...FATIGUE_DEFAULTS },
->>>>>>> main
+  quality: QUALITY_DEFAULTS,
 } as Settings);
 
 function deepFreeze<T>(o: T): T {
@@ -228,9 +220,6 @@ export const SETTINGS_TABLE: readonly SettingDescription[] = Object.freeze([
   { key: 'eva.amplitude_edges', value: DEFAULTS.eva.amplitude_edges, unit: 'normalized unit', meaning: 'EVA amplitude class edges; classes [a, b), the last open above.', source: 'illustrative (from memory), Mathiassen & Winkel 1991' },
   { key: 'eva.duration_edges_s', value: DEFAULTS.eva.duration_edges_s, unit: 's', meaning: 'EVA duration class edges; classes [a, b), the last open above.', source: 'illustrative (from memory), Mathiassen & Winkel 1991' },
   { key: 'trace_step_s', value: DEFAULTS.trace_step_s, unit: 's', meaning: 'Step of the decimated envelope traces drawn in the report.', source: 'tool choice' },
-<<<<<<< HEAD
-  { key: 'quality', value: DEFAULTS.quality, unit: '', meaning: 'Signal-quality screening: thresholds of each check and exclude (leave unusable spans out of the statistics); every key is listed with its unit and source in QUALITY_SETTINGS_TABLE (lib/quality/defaults.ts).', source: 'tool choices, see lib/quality/defaults.ts' },
-=======
   { key: 'fatigue.enabled', value: DEFAULTS.fatigue.enabled, unit: '', meaning: 'Compute spectral epochs, amplitude and mean-frequency trends and JASA categories over the shift.', source: 'Luttmann et al. 2000 (JASA)' },
   { key: 'fatigue.epoch_s', value: DEFAULTS.fatigue.epoch_s, unit: 's', meaning: 'Epoch length for RMS, mean and median power frequency (one Hann-windowed FFT per epoch).', source: '0.5–1 s quasi-stationary epochs (CEDE glossary, McManus et al. 2021)' },
   { key: 'fatigue.block_s', value: DEFAULTS.fatigue.block_s, unit: 's', meaning: 'Length of the time blocks whose trends are fitted (the last block may be shorter); task segments get their own trends too.', source: 'tool choice' },
@@ -239,5 +228,5 @@ export const SETTINGS_TABLE: readonly SettingDescription[] = Object.freeze([
   { key: 'fatigue.band_hz', value: DEFAULTS.fatigue.band_hz, unit: 'Hz', meaning: 'Band [low, high] of the mean and median frequency; null = the band-pass of the analysis.', source: 'tool choice' },
   { key: 'fatigue.min_epochs', value: DEFAULTS.fatigue.min_epochs, unit: '', meaning: 'Fewest active epochs for a trend; blocks with fewer are reported as insufficient data.', source: 'tool choice' },
   { key: 'fatigue.series_step_s', value: DEFAULTS.fatigue.series_step_s, unit: 's', meaning: 'Step of the mean-frequency-over-time series drawn in the report (median of the active epochs per step).', source: 'tool choice' },
->>>>>>> main
+  { key: 'quality', value: DEFAULTS.quality, unit: '', meaning: 'Signal-quality screening: thresholds of each check and exclude (leave unusable spans out of the statistics); every key is listed with its unit and source in QUALITY_SETTINGS_TABLE (lib/quality/defaults.ts).', source: 'tool choices, see lib/quality/defaults.ts' },
 ]);

@@ -167,9 +167,6 @@ const settings = {
       },
     },
     trace_step_s: { type: 'number', exclusiveMinimum: 0, title: 'Trace step, s', description: `Step of the decimated envelope traces in the report, s. Default ${DEFAULTS.trace_step_s}.`, default: DEFAULTS.trace_step_s },
-<<<<<<< HEAD
-    quality: qualitySchema,
-=======
     fatigue: {
       title: 'Fatigue over the shift',
       description: 'Spectral epochs, amplitude and mean-frequency trends per block and task segment, and JASA categories (empty means the defaults).',
@@ -186,7 +183,7 @@ const settings = {
         series_step_s: { type: 'number', exclusiveMinimum: 0, title: 'Series step, s', description: `Step of the MNF-over-time series in the report, s. Default ${DEFAULTS.fatigue.series_step_s}.`, default: DEFAULTS.fatigue.series_step_s },
       },
     },
->>>>>>> main
+    quality: qualitySchema,
   },
 };
 

@@ -226,13 +226,6 @@ export interface StudyResults {
 }
 
 // ---------------------------------------------------------------------------------------------
-<<<<<<< HEAD
-// Optional field added by the quality screening (lib/quality); additive.
-// ---------------------------------------------------------------------------------------------
-
-/** Signal-quality accounting of one worker × recording × channel (times in s). */
-export interface QualityRow {
-=======
 // Fatigue over the shift: spectral trends and JASA (added by the fatigue helper; all additive).
 // ---------------------------------------------------------------------------------------------
 
@@ -245,38 +238,11 @@ export type FatigueCategory = 'force-increase' | 'force-decrease' | 'fatigue' | 
  * Numbers are null where they could not be computed (too few active epochs, no reference).
  */
 export interface FatigueBlock {
->>>>>>> main
   worker: string;
   condition: string;
   muscle: string;
   signal: string;
   recording: string;
-<<<<<<< HEAD
-  /** Time screened, s. */
-  screened_s: number;
-  /** Time left out of the statistics by the screening (union of excluded spans), s. */
-  excluded_s: number;
-  /** Time flagged by each check, s. */
-  clipped_s: number;
-  flat_s: number;
-  lost_s: number;
-  mains_s: number;
-  motion_s: number;
-  ecg_s: number;
-  /** Samples at the digital limits; null without digital limits (CSV). */
-  clipped_samples: number | null;
-  /** Median heart rate where ECG was found, beats/min. */
-  ecg_rate_bpm: number | null;
-  /** Task-to-noise ratio, dB (null without a noise level). */
-  snr_db: number | null;
-  /** Excluded spans with their reasons, s from the recording start. */
-  excluded: { start_s: number; end_s: number; reason: string }[];
-}
-
-export interface StudyResults {
-  /** Signal-quality accounting per recording channel; absent when screening was not run. */
-  quality?: QualityRow[];
-=======
   /** Task segment label for a segment block; null for a time block. */
   segment: string | null;
   /** Window, s from the recording start (epochs whose centre lies in [start_s, end_s)). */
@@ -348,5 +314,41 @@ export interface StudyResults {
   fatigue_series?: FatigueSeries[];
   /** Settings and wording of the fatigue analysis. */
   fatigue_method?: FatigueMethod;
->>>>>>> main
+}
+
+// ---------------------------------------------------------------------------------------------
+// Optional field added by the quality screening (lib/quality); additive.
+// ---------------------------------------------------------------------------------------------
+
+/** Signal-quality accounting of one worker × recording × channel (times in s). */
+export interface QualityRow {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  /** Time screened, s. */
+  screened_s: number;
+  /** Time left out of the statistics by the screening (union of excluded spans), s. */
+  excluded_s: number;
+  /** Time flagged by each check, s. */
+  clipped_s: number;
+  flat_s: number;
+  lost_s: number;
+  mains_s: number;
+  motion_s: number;
+  ecg_s: number;
+  /** Samples at the digital limits; null without digital limits (CSV). */
+  clipped_samples: number | null;
+  /** Median heart rate where ECG was found, beats/min. */
+  ecg_rate_bpm: number | null;
+  /** Task-to-noise ratio, dB (null without a noise level). */
+  snr_db: number | null;
+  /** Excluded spans with their reasons, s from the recording start. */
+  excluded: { start_s: number; end_s: number; reason: string }[];
+}
+
+export interface StudyResults {
+  /** Signal-quality accounting per recording channel; absent when screening was not run. */
+  quality?: QualityRow[];
 }
