@@ -3,6 +3,7 @@ import type { CommandModule } from 'yargs';
 
 import { convertCommand } from './convert.js';
 import { inspectCommand } from './inspect.js';
+import { reportCommand } from './report.js';
 import { versionInfoCommand } from './version-info.js';
 import { analyzeCommand } from './analyze.js';
 import { checkCommand } from './check.js';
@@ -18,6 +19,7 @@ export const commands: CommandModule<any, any>[] = [
   initCommand,
   checkCommand,
   analyzeCommand,
+  reportCommand,
   demoCommand,
   schemaCommand,
   inspectCommand,
