@@ -125,7 +125,7 @@ export const QUALITY_SETTINGS_TABLE: readonly QualitySettingDescription[] = Obje
  * Effective quality settings: the defaults with the given overrides (shallow; arrays replaced whole).
  * @example resolveQualitySettings({ exclude: false }).window_s // 1
  */
-export function resolveQualitySettings(overrides: Partial<QualitySettings> = {}): QualitySettings {
-  const s = { ...QUALITY_DEFAULTS, ...overrides };
+export function resolveQualitySettings(overrides: Partial<QualitySettings> | null = {}): QualitySettings {
+  const s = { ...QUALITY_DEFAULTS, ...(overrides ?? {}) };
   return { ...s, mains_hz: [...s.mains_hz], band_hz: [s.band_hz[0], s.band_hz[1]], ecg_bpm: [s.ecg_bpm[0], s.ecg_bpm[1]] };
 }

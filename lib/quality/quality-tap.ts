@@ -5,23 +5,18 @@
 // 28 800 one-second windows); finish() judges the windows, merges consecutive flagged windows of
 // one check into finding spans and lists the spans to exclude from the statistics.
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
-import { qualityMsg } from '../messages.js';
 import type { ChannelTap } from '../study/read-envelopes.js';
-import type { Finding, FindingWhere, Severity } from '../study/results.js';
+import type { FindingWhere } from '../study/results.js';
 import { resolveQualitySettings, type QualitySettings } from './defaults.js';
 import { estimateHeartRate, HeartRateScratch } from './estimate-heart-rate.js';
+import { judgeScreening } from './judge-screening.js';
+import type { ChannelQuality, ScreeningWindows } from './screening-types.js';
 import { BAND, SegmentBandPowers } from './segment-band-powers.js';
 import { WindowColumns } from './window-columns.js';
 
-/** Codes of the quality findings. */
-export type QualityCode = 'clipped' | 'flat-line' | 'signal-lost' | 'mains' | 'motion' | 'ecg' | 'low-snr';
+export type { ChannelQuality, ExcludedSpan, QualityCode, QualitySummary, ScreeningWindows } from './screening-types.js';
+export { unionLength } from './judge-screening.js';
 
-/** A span left out of the statistics, s from the recording start, [start_s, end_s). */
-export interface ExcludedSpan {
-  start_s: number;
-  end_s: number;
-  reason: QualityCode;
-}
 
 /** The recorder's limits of one signal (from SignalInfo); NaN digital limits: no clipping check. */
 export interface SignalLimits {
@@ -50,42 +45,6 @@ export interface QualityTapOptions {
   settings?: Partial<QualitySettings>;
 }
 
-/** Per-signal summary (inspect, results). Times in s. */
-export interface QualitySummary {
-  fs: number;
-  /** Time screened (samples seen / fs), s. */
-  screened_s: number;
-  /** Samples at the digital limits; null when the signal has none (CSV). */
-  clipped_low: number | null;
-  clipped_high: number | null;
-  /** Time flagged by each check, s (windows, so rounded up to the window). */
-  clipped_s: number;
-  flat_s: number;
-  lost_s: number;
-  mains_s: number;
-  motion_s: number;
-  ecg_s: number;
-  /** Union of the excluded spans, s (0 when settings.exclude is false). */
-  excluded_s: number;
-  /** Noise floor used by the lost-signal check, µV, and where it came from. */
-  noise_floor_uv: number | null;
-  noise_floor_source: 'rest' | 'estimated' | null;
-  /** Median mains power relative to the EMG band (largest of the mains frequencies), dB. */
-  mains_ratio_db: number | null;
-  /** Median low-frequency power relative to the EMG band, dB. */
-  low_ratio_db: number | null;
-  /** Median heart rate over the windows with ECG found, beats/min; null when none. */
-  ecg_rate_bpm: number | null;
-}
-
-export interface ChannelQuality {
-  summary: QualitySummary;
-  findings: Finding[];
-  /** Spans to exclude (empty when settings.exclude is false), sorted by start. */
-  excluded: ExcludedSpan[];
-  /** The settings applied. */
-  settings: QualitySettings;
-}
 
 type AmpCol = 'n' | 'hi' | 'lo' | 'shift' | 's1' | 's2' | 'nan' | 'fn' | 'f2';
 const AMP_COLS: readonly AmpCol[] = ['n', 'hi', 'lo', 'shift', 's1', 's2', 'nan', 'fn', 'f2'];
@@ -345,195 +304,30 @@ export class QualityTap implements ChannelTap {
   }
 
   /**
-   * End of the pass: judge every window, merge flagged windows into findings, list excluded spans.
-   * Idempotent (a second call returns the same object).
+   * The per-window statistics gathered so far, as plain data (typed arrays cut to length, copies):
+   * what judgeScreening needs. Closes the windows still open; call once, after the pass.
+   */
+  windows(): ScreeningWindows {
+    if (this.ePos > 0) this.closeEcgWindow();
+    this.ePos = 0;
+    this.closeSpectralWindow();
+    const cut = <K extends string>(t: WindowColumns<K>, k: K) => t.col(k).slice(0, t.length);
+    return {
+      fs: this.fs, start_s: this.start_s, samples: this.samples, end_samples: this.gEnd,
+      amp_window: this.W1, spectral_window: this.W2, ecg_window: this.WE,
+      has_limits: this.hasLimits, lsb: this.lsb,
+      amp: { n: cut(this.amp, 'n'), hi: cut(this.amp, 'hi'), lo: cut(this.amp, 'lo'), s1: cut(this.amp, 's1'), s2: cut(this.amp, 's2'), fn: cut(this.amp, 'fn'), f2: cut(this.amp, 'f2') },
+      spec: { segs: cut(this.spec, 'segs'), low: cut(this.spec, 'low'), band: cut(this.spec, 'band'), mains: this.settings.mains_hz.map((_, i) => cut(this.spec, `m${i}`)) },
+      ecg: { rate: cut(this.ecg, 'rate'), r: cut(this.ecg, 'r') },
+    };
+  }
+
+  /**
+   * End of the pass: judge every window (judgeScreening with this tap's options), merge flagged
+   * windows into findings, list excluded spans. Idempotent.
    */
   finish(): ChannelQuality {
-    if (this.finished) return this.finished;
-    if (this.ePos > 0) this.closeEcgWindow();
-    this.closeSpectralWindow();
-    const s = this.settings, fs = this.fs;
-    const where = this.options.where ?? {};
-    const signal = where.signal ?? 'signal';
-    const findings: Finding[] = [];
-    const excluded: ExcludedSpan[] = [];
-    const t = (pos: number) => this.start_s + Math.min(pos, this.gEnd) / fs;
-
-    /** Turn flagged windows (flag 1 = reported, 2 = reported and excluded) into findings. */
-    const emit = (code: QualityCode, flags: Uint8Array, W: number, severity: (excl: boolean) => Severity,
-      text: (w0: number, w1: number, t0: number, t1: number, excl: boolean) => string, excludes: boolean): number => {
-      let shown = 0, moreSpans = 0, moreS = 0, total = 0;
-      let w = 0;
-      while (w < flags.length) {
-        const f = flags[w];
-        if (f === 0) { w++; continue; }
-        let e = w + 1;
-        while (e < flags.length && flags[e] === f) e++;
-        const t0 = t(w * W), t1 = t(e * W);
-        total += t1 - t0;
-        const excl = f === 2 && excludes && s.exclude;
-        if (excl) excluded.push({ start_s: t0, end_s: t1, reason: code });
-        if (shown < s.max_spans) {
-          findings.push({ severity: severity(excl), code, where: { ...where, start_s: t0, end_s: t1 }, message: text(w, e, t0, t1, excl) });
-          shown++;
-        } else { moreSpans++; moreS += t1 - t0; }
-        w = e;
-      }
-      if (moreSpans > 0) findings.push({ severity: 'info', code, where: { ...where }, message: qualityMsg.moreSpans(signal, code, moreSpans, moreS) });
-      return total;
-    };
-
-    // ---- amplitude windows: clipping, flat line, lost signal
-    const A = this.amp, nA = A.length;
-    const cn = A.col('n'), chi = A.col('hi'), clo = A.col('lo'), s1 = A.col('s1'), s2 = A.col('s2'), fn = A.col('fn'), f2 = A.col('f2');
-    const std = new Float64Array(nA), frms = new Float64Array(nA);
-    for (let w = 0; w < nA; w++) {
-      const n = cn[w];
-      std[w] = n >= 2 ? Math.sqrt(Math.max(0, (s2[w] - (s1[w] * s1[w]) / n) / (n - 1))) : NaN;
-      frms[w] = fn[w] > 0 ? Math.sqrt(f2[w] / fn[w]) : NaN;
-    }
-    let clippedLow = 0, clippedHigh = 0;
-    const clipFlags = new Uint8Array(nA);
-    if (this.hasLimits) {
-      for (let w = 0; w < nA; w++) {
-        clippedLow += clo[w]; clippedHigh += chi[w];
-        const c = chi[w] + clo[w];
-        if (c >= s.clip_min_samples && c > 0) clipFlags[w] = c >= s.clip_exclude_share * cn[w] ? 2 : 1;
-      }
-    }
-    const flatLimit = Math.max(s.flat_std_uv, 0.5 * this.lsb);
-    const flatFlags = new Uint8Array(nA);
-    for (let w = 0; w < nA; w++) if (std[w] < flatLimit) flatFlags[w] = 2;
-    // noise floor: the rest recording's level, else the 5th percentile of the windows' band RMS
-    let floor: number | null = null, floorSource: 'rest' | 'estimated' | null = null;
-    if (this.options.noise_uv !== undefined && this.options.noise_uv !== null && this.options.noise_uv > 0) {
-      floor = this.options.noise_uv; floorSource = 'rest';
-    } else {
-      const v = sortedFinite(frms, (w) => flatFlags[w] === 0 && cn[w] >= 0.5 * this.W1);
-      if (v.length > 0) { const q = quantileSorted(v, 0.05); if (q > 0) { floor = q; floorSource = 'estimated'; } }
-    }
-    const lostFlags = new Uint8Array(nA);
-    if (floor !== null) {
-      for (let w = 0; w < nA; w++) if (flatFlags[w] === 0 && frms[w] < s.lost_fraction * floor) lostFlags[w] = 2;
-    }
-    const W1 = this.W1;
-    const clipped_s = emit('clipped', clipFlags, W1, () => 'warning', (w0, w1, t0, t1, excl) => {
-      let c = 0, n = 0;
-      for (let w = w0; w < w1; w++) { c += chi[w] + clo[w]; n += cn[w]; }
-      return qualityMsg.clipped(signal, t0, t1, c, n, excl, s.clip_exclude_share);
-    }, true);
-    const flat_s = emit('flat-line', flatFlags, W1, () => 'warning', (w0, w1, t0, t1) => {
-      let m = 0;
-      for (let w = w0; w < w1; w++) if (std[w] > m) m = std[w];
-      return qualityMsg.flatLine(signal, t0, t1, m, flatLimit);
-    }, true);
-    const lost_s = emit('signal-lost', lostFlags, W1, () => 'warning', (w0, w1, t0, t1) => {
-      let m = 0;
-      for (let w = w0; w < w1; w++) if (frms[w] > m) m = frms[w];
-      return qualityMsg.signalLost(signal, t0, t1, m, floor!, s.lost_fraction, floorSource!);
-    }, true);
-
-    // ---- spectral windows: mains, low-frequency artifact
-    const S = this.spec, nS = S.length;
-    const segs = S.col('segs'), low = S.col('low'), band = S.col('band');
-    const mains = s.mains_hz.map((_, i) => S.col(`m${i}`));
-    const emg = new Float64Array(nS), lowPer = new Float64Array(nS), mainsRatio = new Float64Array(nS), mainsWhich = new Int32Array(nS);
-    for (let w = 0; w < nS; w++) {
-      if (segs[w] === 0) { emg[w] = NaN; lowPer[w] = NaN; mainsRatio[w] = NaN; continue; }
-      emg[w] = Math.max(band[w], 1e-300);
-      lowPer[w] = low[w] / segs[w];
-      let best = 0, which = 0;
-      for (let i = 0; i < mains.length; i++) if (mains[i][w] / segs[w] > best) { best = mains[i][w] / segs[w]; which = i; }
-      mainsRatio[w] = best;
-      mainsWhich[w] = which;
-    }
-    const lowSorted = sortedFinite(lowPer, () => true);
-    const lowMedian = lowSorted.length > 0 ? quantileSorted(lowSorted, 0.5) : NaN;
-    const mainsFlags = new Uint8Array(nS), motionFlags = new Uint8Array(nS);
-    for (let w = 0; w < nS; w++) {
-      if (segs[w] === 0) continue;
-      if (mainsRatio[w] >= s.mains_ratio) mainsFlags[w] = 1;
-      const ratio = low[w] / emg[w];
-      const rel = lowPer[w] / lowMedian;
-      if (ratio >= s.motion_ratio && rel >= s.motion_relative) motionFlags[w] = ratio >= s.motion_exclude_ratio ? 2 : 1;
-    }
-    const W2 = this.W2;
-    const notched = this.options.mains_notched === true;
-    const mains_s = emit('mains', mainsFlags, W2, () => (notched ? 'info' : 'warning'), (w0, w1, t0, t1) => {
-      let m = 0, which = 0;
-      for (let w = w0; w < w1; w++) if (mainsRatio[w] > m) { m = mainsRatio[w]; which = mainsWhich[w]; }
-      return qualityMsg.mains(signal, t0, t1, s.mains_hz[which], m, s.mains_ratio, notched);
-    }, false);
-    const motion_s = emit('motion', motionFlags, W2, () => 'warning', (w0, w1, t0, t1, excl) => {
-      let m = 0, rel = 0;
-      for (let w = w0; w < w1; w++) { const r = low[w] / emg[w]; if (r > m) { m = r; rel = lowPer[w] / lowMedian; } }
-      return qualityMsg.motion(signal, t0, t1, m, s.motion_ratio, rel, excl, s.motion_exclude_ratio);
-    }, true);
-
-    // ---- ECG windows
-    const E = this.ecg, nE = E.length;
-    const rate = E.col('rate'), rr = E.col('r');
-    const ecgFlags = new Uint8Array(nE);
-    for (let w = 0; w < nE; w++) if (rr[w] >= s.ecg_min_r && rate[w] === rate[w]) ecgFlags[w] = 1;
-    const hp = this.options.highpass_hz ?? null;
-    const ecg_s = emit('ecg', ecgFlags, this.WE, () => (hp !== null && hp >= 30 ? 'info' : 'warning'), (w0, w1, t0, t1) => {
-      const rates = sortedFinite(rate, (w) => w >= w0 && w < w1 && ecgFlags[w] === 1);
-      let rmin = Infinity;
-      for (let w = w0; w < w1; w++) if (rr[w] < rmin) rmin = rr[w];
-      return qualityMsg.ecg(signal, t0, t1, quantileSorted(rates, 0.5), rmin, s.ecg_min_r, hp);
-    }, false);
-    const ecgRates = sortedFinite(rate, (w) => ecgFlags[w] === 1);
-
-    excluded.sort((a, b) => a.start_s - b.start_s || a.end_s - b.end_s);
-    const mainsSorted = sortedFinite(mainsRatio, () => true);
-    const lowRatios = new Float64Array(nS);
-    for (let w = 0; w < nS; w++) lowRatios[w] = segs[w] > 0 ? low[w] / emg[w] : NaN;
-    const lowRatioSorted = sortedFinite(lowRatios, () => true);
-    const db = (v: number[]) => (v.length === 0 ? null : 10 * Math.log10(Math.max(quantileSorted(v, 0.5), 1e-30)));
-    this.finished = {
-      summary: {
-        fs,
-        screened_s: this.samples / fs,
-        clipped_low: this.hasLimits ? clippedLow : null,
-        clipped_high: this.hasLimits ? clippedHigh : null,
-        clipped_s, flat_s, lost_s, mains_s, motion_s, ecg_s,
-        excluded_s: unionLength(excluded),
-        noise_floor_uv: floor,
-        noise_floor_source: floorSource,
-        mains_ratio_db: db(mainsSorted),
-        low_ratio_db: db(lowRatioSorted),
-        ecg_rate_bpm: ecgRates.length > 0 ? quantileSorted(ecgRates, 0.5) : null,
-      },
-      findings,
-      excluded,
-      settings: s,
-    };
+    if (!this.finished) this.finished = judgeScreening(this.windows(), this.options);
     return this.finished;
   }
-}
-
-/** Finite values of a[w] for which keep(w) holds, sorted ascending. */
-function sortedFinite(a: Float64Array, keep: (w: number) => boolean): number[] {
-  const v: number[] = [];
-  for (let w = 0; w < a.length; w++) if (Number.isFinite(a[w]) && keep(w)) v.push(a[w]);
-  return v.sort((x, y) => x - y);
-}
-
-/** Linear-interpolation quantile (numpy default) of sorted values. */
-function quantileSorted(v: number[], q: number): number {
-  if (v.length === 0) return NaN;
-  const h = (v.length - 1) * q;
-  const lo = Math.floor(h);
-  return lo + 1 < v.length ? v[lo] + (h - lo) * (v[lo + 1] - v[lo]) : v[lo];
-}
-
-/** Total length of the union of spans, s. */
-export function unionLength(spans: readonly { start_s: number; end_s: number }[]): number {
-  const v = [...spans].sort((a, b) => a.start_s - b.start_s);
-  let total = 0, s = -Infinity, e = -Infinity;
-  for (const x of v) {
-    if (x.start_s > e) { if (e > s) total += e - s; s = x.start_s; e = x.end_s; } else if (x.end_s > e) e = x.end_s;
-  }
-  if (e > s) total += e - s;
-  return total;
 }

@@ -1,43 +1,50 @@
-// The bridge between the analysis and the screening: plain-data options (they cross worker
-// threads with a RecordingJob) turned into one QualityTap per channel, and the taps' results back
-// into plain data. The analysis passes the taps to readEnvelopes so screening shares its one pass.
+// The bridge between the analysis and the screening. A recording job carries a ScreeningSpec
+// (plain data) to wherever the recording is read (inline or a worker thread); there it becomes one
+// QualityTap per channel for readEnvelopes, so screening shares the analysis' single pass; the
+// taps' windows (transferable typed arrays) come back and are judged once the noise level is known.
+import { openRecording } from '../io/open-recording.js';
+import type { OpenOptions } from '../io/open-options.js';
 import type { SignalInfo } from '../io/recording.js';
-import type { FindingWhere } from '../study/results.js';
 import type { QualitySettings } from './defaults.js';
-import { QualityTap, type ChannelQuality } from './quality-tap.js';
+import { QualityTap } from './quality-tap.js';
+import type { ScreeningWindows } from './screening-types.js';
 
-/** Plain-data request to screen the channels of one recording (structured-clone safe). */
-export interface ScreeningRequest {
+/** Plain-data description of the screening taps of one recording job (structured-clone safe). */
+export interface ScreeningSpec {
   /** The job's settings.quality (partial allowed; defaults fill the rest). */
   settings?: Partial<QualitySettings> | null;
-  /** True when the analysis notches the mains frequency. */
-  mains_notched: boolean;
-  /** High-pass edge of the analysis band-pass, Hz. */
-  highpass_hz: number;
-  /** One entry per channel read, in the order of the signals requested. */
-  channels: { noise_uv: number | null; where: FindingWhere }[];
 }
 
 /**
- * One QualityTap per requested channel.
- * @param req plain-data request
- * @param signals the SignalInfo of each requested channel, same order as req.channels
- * @example
- *   const taps = screeningTaps(req, job.signals.map((i) => info.signals[i]));
- *   await readEnvelopes({ ..., taps });
- *   const quality = taps.map((t) => t.finish());
+ * One QualityTap per requested channel, when the SignalInfo of each is at hand.
+ * @param spec plain-data spec
+ * @param signals the SignalInfo of each requested channel, in the order read
+ * @example const taps = screeningTaps({ settings: s.quality }, idx.map((i) => info.signals[i]));
  */
-export function screeningTaps(req: ScreeningRequest, signals: readonly SignalInfo[]): QualityTap[] {
-  return req.channels.map((c, j) => {
-    const sig = signals[j]!;
-    return new QualityTap({
-      fs: sig.rate_hz, limits: sig, noise_uv: c.noise_uv, mains_notched: req.mains_notched, highpass_hz: req.highpass_hz,
-      where: c.where, settings: req.settings ?? undefined,
-    });
-  });
+export function screeningTaps(spec: ScreeningSpec, signals: readonly SignalInfo[]): QualityTap[] {
+  return signals.map((sig) => new QualityTap({ fs: sig.rate_hz, limits: sig, settings: spec.settings ?? undefined }));
 }
 
-/** The finished results of the taps (plain data; transferable between threads by structured clone). */
-export function finishScreening(taps: readonly QualityTap[]): ChannelQuality[] {
-  return taps.map((t) => t.finish());
+/**
+ * One QualityTap per requested channel of a file: reads the header for each signal's rate and
+ * digital limits (a header read only; the samples are read by the analysis pass).
+ * @param file recording path
+ * @param signals SignalInfo indices, in the order read
+ * @param spec plain-data spec
+ * @param open reader options (CSV rate)
+ * @throws InputError from the readers
+ * @example const taps = await createScreeningTaps(job.file, job.signals, job.quality, job.open);
+ */
+export async function createScreeningTaps(file: string, signals: readonly number[], spec: ScreeningSpec, open?: OpenOptions): Promise<QualityTap[]> {
+  const rec = await openRecording(file, open);
+  try {
+    return screeningTaps(spec, signals.map((i) => rec.info.signals[i]!));
+  } finally {
+    await rec.close();
+  }
+}
+
+/** The windows of every tap after the pass (plain data, transferable: see screeningBuffers). */
+export function screeningWindows(taps: readonly QualityTap[]): ScreeningWindows[] {
+  return taps.map((t) => t.windows());
 }
