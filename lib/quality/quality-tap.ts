@@ -2,8 +2,8 @@
 // (lib/study/read-envelopes.ts): raw chunks feed the amplitude checks (clipping, flat line) and a
 // windowed spectrum (mains, low-frequency artifact); band-passed chunks feed the lost-signal and
 // ECG checks. During the pass only compact per-window statistics are kept (an 8-hour channel:
-// 28 800 one-second windows); finish() judges the windows, merges consecutive flagged windows of
-// one check into finding spans and lists the spans to exclude from the statistics.
+// 28 800 one-second windows); windows() hands them over as plain data and judgeScreening (or
+// finish(), which calls it) turns them into findings and excluded spans.
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
 import type { ChannelTap } from '../study/read-envelopes.js';
 import type { FindingWhere } from '../study/results.js';
@@ -16,7 +16,6 @@ import { WindowColumns } from './window-columns.js';
 
 export type { ChannelQuality, ExcludedSpan, QualityCode, QualitySummary, ScreeningWindows } from './screening-types.js';
 export { unionLength } from './judge-screening.js';
-
 
 /** The recorder's limits of one signal (from SignalInfo); NaN digital limits: no clipping check. */
 export interface SignalLimits {
@@ -45,17 +44,16 @@ export interface QualityTapOptions {
   settings?: Partial<QualitySettings>;
 }
 
-
 type AmpCol = 'n' | 'hi' | 'lo' | 'shift' | 's1' | 's2' | 'nan' | 'fn' | 'f2';
 const AMP_COLS: readonly AmpCol[] = ['n', 'hi', 'lo', 'shift', 's1', 's2', 'nan', 'fn', 'f2'];
 type EcgCol = 'rate' | 'r';
 
 /**
  * Quality screening of one channel during the streaming pass. Give it to readEnvelopes as the
- * channel's tap, then call finish() after the pass.
+ * channel's tap, then call finish() (or windows() + judgeScreening) after the pass.
  * Windows are counted from the span start: amplitude windows of settings.window_s, spectral
  * windows of settings.spectral_window_s (Hann segments of nperseg = the power of two nearest
- * fs/2, half overlap, each counted in the window holding its centre), ECG windows of
+ * fs/2, without overlap, each counted in the window holding its centre), ECG windows of
  * settings.ecg_window_s. Results do not depend on how the samples are chunked.
  * @example
  *   const tap = new QualityTap({ fs: 2000, limits: info.signals[0], where: { signal: 'EMG R' } });
