@@ -99,7 +99,7 @@ export interface QualitySettingDescription {
 export const QUALITY_SETTINGS_TABLE: readonly QualitySettingDescription[] = Object.freeze([
   { key: 'exclude', unit: '', meaning: 'Leave unusable spans (flat line, lost signal, heavy clipping, severe low-frequency artifact) out of the statistics; false only reports them.', source: 'tool choice, no source' },
   { key: 'window_s', unit: 's', meaning: 'Window of the clipping, flat-line and lost-signal checks.', source: 'tool choice, no source' },
-  { key: 'spectral_window_s', unit: 's', meaning: 'Window of the mains and low-frequency checks (Welch spectrum, Hann segments of about 0.5 s, half overlap).', source: 'tool choice, no source' },
+  { key: 'spectral_window_s', unit: 's', meaning: 'Window of the mains and low-frequency checks (Welch spectrum, Hann segments of about 0.5 s, no overlap, band-normalized before averaging).', source: 'tool choice, no source' },
   { key: 'ecg_window_s', unit: 's', meaning: 'Window of the ECG check (heart rate by autocorrelation of the spike-enhanced band-passed signal).', source: 'tool choice, no source' },
   { key: 'clip_min_samples', unit: 'samples', meaning: 'A window with at least this many samples at the digital limits is reported.', source: 'tool choice, no source' },
   { key: 'clip_exclude_share', unit: 'fraction', meaning: 'Share of a window at the digital limits from which the window is excluded.', source: 'tool choice, no source' },
