@@ -53,7 +53,7 @@ export interface QualitySettings {
   ecg_min_r: number;
   /** Bin length of the spike-enhanced signal (mean rectified value per bin), s. @default 0.02 */
   ecg_bin_s: number;
-  /** Running-median baseline removed from the binned signal, s. @default 0.5 */
+  /** Running-mean baseline the binned signal is divided by (relative excess), s. @default 0.5 */
   ecg_baseline_s: number;
   /** Task-to-noise ratio (noise removed, power ratio in dB) below which a low SNR is reported. @default 6 */
   snr_min_db: number;
@@ -116,7 +116,7 @@ export const QUALITY_SETTINGS_TABLE: readonly QualitySettingDescription[] = Obje
   { key: 'ecg_bpm', unit: 'beats/min', meaning: 'Heart rates searched.', source: 'resting to heavy-work heart rates (textbook physiology, from memory)' },
   { key: 'ecg_min_r', unit: '', meaning: 'Autocorrelation at the heart period from which ECG contamination is reported.', source: 'tool choice, no source' },
   { key: 'ecg_bin_s', unit: 's', meaning: 'Bin of the spike-enhanced signal (mean rectified band-passed value).', source: 'tool choice (a QRS complex lasts about 0.1 s, textbook physiology)' },
-  { key: 'ecg_baseline_s', unit: 's', meaning: 'Running-median baseline removed before the autocorrelation (removes slow changes of muscle activity).', source: 'tool choice, no source' },
+  { key: 'ecg_baseline_s', unit: 's', meaning: 'Running-mean baseline; the autocorrelation uses the relative excess over it (removes slow changes of muscle activity).', source: 'tool choice, no source' },
   { key: 'snr_min_db', unit: 'dB', meaning: 'Task-to-noise power ratio (noise removed) below which a low SNR is reported.', source: 'tool choice, no source' },
   { key: 'max_spans', unit: '', meaning: 'Findings per check and channel; further spans are summed into one closing finding.', source: 'tool choice' },
 ]);

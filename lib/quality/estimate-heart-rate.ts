@@ -1,5 +1,5 @@
 // Heart rate of ECG contamination in band-passed EMG: the rectified signal is binned (mean |y| per
-// bin), and only its relative excess over a running median is kept (spike enhancement: QRS
+// bin), and only its relative excess over a running mean is kept (spike enhancement: QRS
 // complexes stand out, slow changes of muscle activity do not), then the normalized
 // autocorrelation is searched over the lags of the heart-rate range. A clear peak at lag L means
 // periodic spikes every L bins. Method: autocorrelation pitch estimation (textbook signal
@@ -10,7 +10,7 @@ export interface HeartRateOptions {
   bin_rate_hz: number;
   /** Heart rates searched, beats/min. */
   bpm: readonly [number, number];
-  /** Running-median baseline length, s. */
+  /** Running-mean baseline length, s. */
   baseline_s: number;
 }
 
@@ -27,17 +27,15 @@ export interface HeartRate {
  */
 export class HeartRateScratch {
   d = new Float64Array(0);
-  sortBuf = new Float64Array(0);
   r = new Float64Array(0);
-  private med = new Float64Array(0);
-  /** A buffer of at least n values for the baseline points. */
-  medians(n: number): Float64Array {
-    if (this.med.length < n) this.med = new Float64Array(n);
-    return this.med;
+  private cum = new Float64Array(0);
+  /** A buffer of at least n values for the prefix sums. */
+  prefix(n: number): Float64Array {
+    if (this.cum.length < n) this.cum = new Float64Array(n);
+    return this.cum;
   }
-  ensure(n: number, win: number, lags: number): void {
+  ensure(n: number, lags: number): void {
     if (this.d.length < n) this.d = new Float64Array(n);
-    if (this.sortBuf.length !== win) this.sortBuf = new Float64Array(win);
     if (this.r.length < lags) this.r = new Float64Array(lags);
   }
 }
@@ -60,29 +58,18 @@ export function estimateHeartRate(bins: Float64Array, n: number, options: HeartR
   const lagMax = Math.ceil((60 / options.bpm[0]) * rate);
   const half = Math.max(1, Math.round((options.baseline_s * rate) / 2));
   if (n < 2 * lagMax || n < 2 * half + 1) return { rate_bpm: NaN, r: NaN };
-  scratch.ensure(n, 2 * half + 1, lagMax + 2);
-  const d = scratch.d, sb = scratch.sortBuf, r = scratch.r;
+  scratch.ensure(n, lagMax + 2);
+  const d = scratch.d, r = scratch.r;
 
-  // Spike enhancement: excess over a running median (window 2·half+1, shrinking at the ends).
-  // The median is evaluated every `stride` bins and interpolated linearly in between (the
-  // baseline is smooth at that scale; a sort per bin was most of the tap's time).
-  const stride = Math.max(1, Math.floor(half / 2));
-  const points = Math.ceil((n - 1) / stride) + 1;
-  const med = scratch.medians(points);
-  for (let j = 0; j < points; j++) {
-    const m = Math.min(n - 1, j * stride);
-    const a = Math.max(0, m - half), b = Math.min(n, m + half + 1);
-    const w = b - a;
-    for (let k = 0; k < w; k++) sb[k] = bins[a + k];
-    const s = w === sb.length ? sb.sort() : sb.subarray(0, w).sort();
-    med[j] = w & 1 ? s[w >> 1] : 0.5 * (s[(w >> 1) - 1] + s[w >> 1]);
-  }
+  // Spike enhancement: relative excess over a running mean (window 2·half+1, shrinking at the
+  // ends; prefix sums, so O(1) per bin). Amplitude-modulated noise has the same relative spread at
+  // every level, so changes of muscle activity do not leak into the autocorrelation.
+  const cs = scratch.prefix(n + 1);
+  cs[0] = 0;
+  for (let m = 0; m < n; m++) cs[m + 1] = cs[m] + bins[m];
   for (let m = 0; m < n; m++) {
-    const j = Math.floor(m / stride);
-    const m0 = j * stride, m1 = Math.min(n - 1, (j + 1) * stride);
-    const base = j + 1 < points && m1 > m0 ? med[j] + ((m - m0) / (m1 - m0)) * (med[j + 1] - med[j]) : med[j];
-    // relative excess: amplitude-modulated noise has the same relative spread at every level,
-    // so changes of muscle activity do not leak into the autocorrelation
+    const a = m - half < 0 ? 0 : m - half, b = m + half + 1 > n ? n : m + half + 1;
+    const base = (cs[b] - cs[a]) / (b - a);
     const e = base > 0 ? (bins[m] - base) / base : 0;
     d[m] = e > 0 ? e : 0;
   }
