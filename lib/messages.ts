@@ -12,6 +12,7 @@ export const msg = {
   emptyFile: (file: string) => `${file}: file is empty`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read (${reason})`,
   outputIsInput: (file: string) => `${file}: output path is also an input; refusing to overwrite an input`,
+  notResults: (file: string, what: string) => `${file}: not a shiftload results file: ${what}`,
   outputNotFolder: (dir: string) => `${dir}: output path exists and is not a folder`,
   outputExists: (dir: string) => `${dir}: output folder exists and is not empty; use --force to reuse it`,
   badOption: (option: string, expected: string, got: string) => `--${option}: expected ${expected}, got ${got}`,
@@ -77,6 +78,7 @@ export const ioMsg = {
   writerNumber: (what: string, value: number) => `EDF writer: ${what} ${value} does not fit in an 8-character EDF header field`,
   writerPhysRange: (label: string, lo: number, hi: number) => `EDF writer: signal '${label}': physical minimum ${lo} must be below maximum ${hi}`,
   // convert
+  convertProcessingGap: (file: string) => `${file}: the recording is discontinuous (EDF+D); filtering or an envelope needs continuous data — convert each continuous span with --start/--end`,
   convertMixedRates: (rates: string) =>
     `convert --format csv: the selected signals have different sampling rates (${rates} Hz); select signals of one rate with --signals`,
   convertUnknownSignal: (name: string, labels: string) => `--signals: no signal named '${name}' (signals: ${labels})`,

@@ -182,6 +182,24 @@ export interface Comparison {
   descriptive_only: boolean;
   /** One plain-language sentence that never overclaims. */
   statement: string;
+  /** Planning aid (paired comparisons with ≥ 2 differences); see lib/study/plan-comparisons.ts. */
+  planning?: ComparisonPlanning;
+}
+
+/** What this design could detect, and the workers needed for a named difference. */
+export interface ComparisonPlanning {
+  /** Sample SD of the per-worker differences, in the comparison's unit. */
+  sd_of_differences: number;
+  n: number;
+  /** Smallest mean difference detectable with n workers at alpha and power. */
+  detectable_difference: number;
+  alpha: number;
+  power: number;
+  /** The difference the user asked about (--detect), or null. */
+  detect: number | null;
+  /** Workers needed to detect it, or null. */
+  workers_needed: number | null;
+  method: string;
 }
 
 // ---------------------------------------------------------------------------------------------
