@@ -167,10 +167,10 @@ export const inspectCommand: CommandModule<object, InspectArgs> = {
     .option('rate', { type: 'number', describe: 'CSV/TSV without a time column: sampling rate in Hz' })
     .option('unit', { type: 'string', describe: 'CSV/TSV: unit of columns whose header gives none as "name [unit]" (default uV)' })
     .option('quality', { type: 'boolean', default: false, describe: 'also screen signal quality (clipping, flat line, lost signal, mains, movement, ECG) in a second pass' })
-    .example('$0 inspect worker07_shift.edf --quality', 'add a quality table per signal and the quality findings with their times')
     .example('$0 inspect worker07_shift.edf', 'signals, ranges, annotations and clipped samples as tables')
     .example('$0 inspect worker07_shift.edf --json', 'the same as one JSON object (for scripts)')
-    .example('$0 inspect export.csv --rate 2000', 'a CSV export without a time column, sampled at 2000 Hz') as never,
+    .example('$0 inspect export.csv --rate 2000', 'a CSV export without a time column, sampled at 2000 Hz')
+    .example('$0 inspect worker07_shift.edf --quality', 'add a quality table per signal and the quality findings with their times') as never,
   handler: async (argv) => {
     const r = await inspectRecording(argv.file, {
       ...(argv.rate !== undefined ? { rate_hz: argv.rate } : {}),
