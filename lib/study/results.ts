@@ -351,3 +351,40 @@ export interface StudyResults {
   /** Settings and wording of the fatigue analysis. */
   fatigue_method?: FatigueMethod;
 }
+
+// ---------------------------------------------------------------------------------------------
+// Optional field added by the quality screening (lib/quality); additive.
+// ---------------------------------------------------------------------------------------------
+
+/** Signal-quality accounting of one worker × recording × channel (times in s). */
+export interface QualityRow {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  /** Time screened, s. */
+  screened_s: number;
+  /** Time left out of the statistics by the screening (union of excluded spans), s. */
+  excluded_s: number;
+  /** Time flagged by each check, s. */
+  clipped_s: number;
+  flat_s: number;
+  lost_s: number;
+  mains_s: number;
+  motion_s: number;
+  ecg_s: number;
+  /** Samples at the digital limits; null without digital limits (CSV). */
+  clipped_samples: number | null;
+  /** Median heart rate where ECG was found, beats/min. */
+  ecg_rate_bpm: number | null;
+  /** Task-to-noise ratio, dB (null without a noise level). */
+  snr_db: number | null;
+  /** Excluded spans with their reasons, s from the recording start. */
+  excluded: { start_s: number; end_s: number; reason: string }[];
+}
+
+export interface StudyResults {
+  /** Signal-quality accounting per recording channel; absent when screening was not run. */
+  quality?: QualityRow[];
+}
