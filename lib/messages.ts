@@ -238,7 +238,7 @@ export const findingText = {
   thresholdNotConverted: (signal: string) => `the %MVE gap threshold could not be converted to %RVE for ${signal} (no MVE reference); gap and rest figures are left empty`,
   clipping: (clipped: number, samples: number) => `${clipped} of ${samples} samples (${(100 * clipped / Math.max(1, samples)).toPrecision(2)} %) at the recorder's digital limits (clipping); amplitudes in those spans are underestimated`,
   segmentTooShort: (label: string, length: number, window: number) => `segment '${label}' lasts ${length.toPrecision(3)} s, shorter than the ${window} s RMS window; its figures rest on very few values`,
-  excludedTime: (label: string, excluded: number, length: number) => `${excluded.toFixed(1)} s of ${length.toFixed(1)} s in segment '${label}' had no valid data (missing or NaN samples) and were left out`,
+  excludedTime: (label: string, excluded: number, length: number) => `${excluded.toFixed(1)} s of ${length.toFixed(1)} s in segment '${label}' had no valid data (missing or NaN samples, or spans the quality screening judged unusable) and were left out`,
   referenceWeak: (signal: string, p90: number) => `${signal}: task values reach ${p90.toFixed(0)} %MVE (90th percentile above 100 %); the reference contraction was probably not maximal, so %MVE figures are overstated`,
   discontinuous: (n: number) => `the recording has ${n} interruption(s) (EDF+D); filters restart after each and the time between records counts as no data`,
 };
