@@ -90,6 +90,9 @@ export interface SpectralEpochSeries {
  * @example const tap = new SpectralEpochs({ fs: 1000, band_hz: [30, 400] }); tap.filtered(y); tap.result();
  * Source: MNF/MDF definitions, Phinyomark et al. 2012 (METHODS.md §7); epoch length, CEDE glossary.
  */
+/** Every how many raw epochs one enters the mean raw spectrum. */
+const RAW_STRIDE = 4;
+
 export class SpectralEpochs implements ChannelTap {
   readonly fs: number;
   readonly n: number;
@@ -115,6 +118,8 @@ export class SpectralEpochs implements ChannelTap {
   private rawFill = 0;
   private readonly rawSum: Float64Array;
   private rawEpochs = 0;
+  /** Raw epochs seen; only every RAW_STRIDE-th is transformed (see pushRaw). */
+  private rawIndex = 0;
   private readonly binHz: number;
 
   constructor(options: SpectralEpochsOptions) {
@@ -151,17 +156,22 @@ export class SpectralEpochs implements ChannelTap {
     this.pushRaw(x);
   }
 
-  /** Feed raw samples (batch use and tests; same as `raw`). */
+  /**
+   * Feed raw samples (batch use and tests; same as `raw`). The mean raw spectrum averages every
+   * RAW_STRIDE-th epoch (the first, then every fourth): over a shift that is still hundreds of
+   * epochs spread evenly in time, at a quarter of the transforms.
+   */
   pushRaw(x: ArrayLike<number>): void {
     const n = this.n, buf = this.rawBuf;
     let i = 0;
     while (i < x.length) {
       const m = Math.min(n - this.rawFill, x.length - i);
-      for (let j = 0; j < m; j++) buf[this.rawFill + j] = x[i + j]!;
+      if (this.rawIndex % RAW_STRIDE === 0) for (let j = 0; j < m; j++) buf[this.rawFill + j] = x[i + j]!;
       this.rawFill += m;
       i += m;
       if (this.rawFill === n) {
-        this.rawEpoch();
+        if (this.rawIndex % RAW_STRIDE === 0) this.rawEpoch();
+        this.rawIndex++;
         this.rawFill = 0;
       }
     }
