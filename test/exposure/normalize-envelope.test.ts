@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { normalizeEnvelope } from '../../lib/exposure/normalize-envelope.js';
 import { rveOverMve, thresholdToMve, thresholdToRve } from '../../lib/exposure/threshold-to-rve.js';
 import { maxValue } from '../../lib/exposure/max-value.js';
-import { meanValue } from '../../lib/exposure/mean-value.js';
+import { mean as meanValue } from '../../lib/stats/mean.js';
 import { UsageError } from '../../lib/errors.js';
 
 describe('normalizeEnvelope(env, referenceUv) and threshold conversion', () => {
