@@ -75,6 +75,8 @@ export const ioMsg = {
   writerRate: (rates: string, duration: number) =>
     `EDF writer: sampling rates ${rates} Hz give no whole number of samples per ${duration} s data record`,
   writerNumber: (what: string, value: number) => `EDF writer: ${what} ${value} does not fit in an 8-character EDF header field`,
+  writerRecordSize: (bytes: number, limit: number) =>
+    `EDF writer: a data record would take ${bytes} bytes (limit ${limit}); the sampling rate is implausibly high for this writer`,
   writerPhysRange: (label: string, lo: number, hi: number) => `EDF writer: signal '${label}': physical minimum ${lo} must be below maximum ${hi}`,
   // convert
   convertMixedRates: (rates: string) =>

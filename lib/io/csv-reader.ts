@@ -3,7 +3,7 @@
 // header phase validates every cell, counts rows and empty cells and finds the sampling rate (time
 // column or option); `read()` parses the rows again into chunk buffers.
 // Conventions (common practice, no single source): delimiter ',' ';' or tab, detected from the
-// header row; with ';' or tab a ',' in a number is a decimal comma; surrounding double quotes are
+// header row; with ';' or tab a ',' in a number is a decimal comma (a '.' is accepted too); surrounding double quotes are
 // removed from cells (quoted delimiters are not supported); blank lines are skipped.
 import type { FileHandle } from 'node:fs/promises';
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
