@@ -242,7 +242,7 @@ function scanRow(file: string, buf: Buffer, s: number, e: number, line: number, 
     const b = cellEnd[c];
     if (isMissing(buf, a, b)) { nan[j]++; continue; }
     const v = parseDecimal(buf, a, b, L.decimalComma);
-    if (Number.isNaN(v)) throw new InputError(ioMsg.csvNotNumber(file, line, L.names[j], buf.toString('utf8', a, b)), { file, where: `line ${line}` });
+    if (!Number.isFinite(v)) throw new InputError(ioMsg.csvNotNumber(file, line, L.names[j], buf.toString('utf8', a, b)), { file, where: `line ${line}` });
     if (v < mins[j]) mins[j] = v;
     if (v > maxs[j]) maxs[j] = v;
   }
@@ -251,7 +251,7 @@ function scanRow(file: string, buf: Buffer, s: number, e: number, line: number, 
   const b = cellEnd[L.timeColumn];
   if (isMissing(buf, a, b)) return NaN;
   const t = parseDecimal(buf, a, b, L.decimalComma);
-  if (Number.isNaN(t)) throw new InputError(ioMsg.csvNotNumber(file, line, 'time', buf.toString('utf8', a, b)), { file, where: `line ${line}` });
+  if (!Number.isFinite(t)) throw new InputError(ioMsg.csvNotNumber(file, line, 'time', buf.toString('utf8', a, b)), { file, where: `line ${line}` });
   return t;
 }
 
