@@ -1,6 +1,6 @@
 // Atomic file output: write a temporary file beside the target, fsync, then rename over it, so a
 // killed run leaves either the previous file or the complete new one — never half a file.
-import { closeSync, fsyncSync, openSync, renameSync, unlinkSync, writeSync } from 'node:fs';
+import { closeSync, fsyncSync, openSync, readdirSync, renameSync, unlinkSync, writeSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 
 /** Temporary path beside `target` (same folder, so rename stays on one file system). */
@@ -26,7 +26,40 @@ export function writeAtomic(target: string, data: string | Uint8Array): void {
     throw e;
   }
   closeSync(fd);
-  renameSync(tmp, target);
+  try {
+    renameSync(tmp, target);
+  } catch (e) {
+    try { unlinkSync(tmp); } catch { /* already gone */ }
+    throw e;
+  }
+}
+
+/** True when a process with this id is running (signal 0 probes without sending anything). */
+function processAlive(pid: number): boolean {
+  if (pid === process.pid) return true;
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
+
+/**
+ * Remove temporary files that a killed run left beside the outputs `names` in `dir`
+ * (".name.PID.tmp" whose process no longer runs). Returns the names removed.
+ * @example removeStaleTemps('out', ['results.json', 'segments.csv'])
+ */
+export function removeStaleTemps(dir: string, names: readonly string[]): string[] {
+  const removed: string[] = [];
+  let entries: string[];
+  try { entries = readdirSync(dir); } catch { return removed; }
+  for (const e of entries) {
+    const m = /^\.(.+)\.(\d+)\.tmp$/.exec(e);
+    if (!m || !names.includes(m[1]) || processAlive(Number(m[2]))) continue;
+    try { unlinkSync(join(dir, e)); removed.push(e); } catch { /* gone or not ours */ }
+  }
+  return removed;
 }
 
 /**
@@ -59,7 +92,12 @@ export class AtomicFile {
     fsyncSync(this.fd);
     closeSync(this.fd);
     this.fd = null;
-    renameSync(this.tmp, this.target);
+    try {
+      renameSync(this.tmp, this.target);
+    } catch (e) {
+      try { unlinkSync(this.tmp); } catch { /* already gone */ }
+      throw e;
+    }
   }
 
   abort(): void {

@@ -2,7 +2,7 @@
 // in-process through the CLI (`inspect`, `convert`, `check`, `analyze --no-report`). Every case must
 // end with exit 0, or exit 2 and exactly one line on stderr — never exit 1 (internal error), an
 // uncaught exception, a hang, or a half-written output under a final name.
-import { existsSync, mkdirSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { CommandModule } from 'yargs';
 import { analyzeCommand } from '../cli/analyze.js';
@@ -199,6 +199,31 @@ function strayTemps(dir: string): string[] {
   return readdirSync(dir).filter((f) => f.startsWith('.') && f.endsWith('.tmp'));
 }
 
+/**
+ * What must hold after exit 0: every output exists (and results.json parses); `inspect --json`
+ * reports finite positive rates and durations and finite physical ranges (a non-finite value there
+ * means a damaged number was accepted).
+ */
+function postconditionFailure(p: Prepared, stdout: string): string | null {
+  const missing = p.outputs.filter((o) => !existsSync(o));
+  if (missing.length > 0) return `exit 0 but no output ${missing.join(', ')}`;
+  if (p.kind.endsWith('analyze')) {
+    try { JSON.parse(readFileSync(p.outputs[0], 'utf8')); } catch { return 'exit 0 but results.json does not parse'; }
+  }
+  if (p.argv.json === true && p.command === inspectCommand) {
+    let r: { duration_s: unknown; signals: { rate_hz: unknown; physical_min: unknown; physical_max: unknown; samples: unknown }[] };
+    try { r = JSON.parse(stdout); } catch { return 'inspect --json printed no JSON'; }
+    const fin = (x: unknown) => typeof x === 'number' && Number.isFinite(x);
+    if (!fin(r.duration_s) || (r.duration_s as number) < 0) return `inspect --json: duration_s ${String(r.duration_s)}`;
+    for (const sg of r.signals) {
+      if (!fin(sg.rate_hz) || !((sg.rate_hz as number) > 0)) return `inspect --json: rate_hz ${String(sg.rate_hz)}`;
+      if (!fin(sg.physical_min) || !fin(sg.physical_max)) return `inspect --json: physical range ${String(sg.physical_min)}…${String(sg.physical_max)}`;
+      if (!Number.isInteger(sg.samples) || (sg.samples as number) < 0) return `inspect --json: samples ${String(sg.samples)}`;
+    }
+  }
+  return null;
+}
+
 /** Run one case and judge it. */
 export async function runCase(seed: number, i: number, seeds: string, work: string, timeoutMs: number, kinds: readonly FuzzKind[] = FUZZ_KINDS, via: 'main' | 'handler' = 'main'): Promise<CaseResult> {
   rmSync(work, { recursive: true, force: true });
@@ -231,6 +256,7 @@ export async function runCase(seed: number, i: number, seeds: string, work: stri
   else if (code === 2 && !lines[0].startsWith('shiftload: ')) failure = 'exit 2 without the shiftload: prefix';
   else if (code !== 0 && code !== 2) failure = `exit ${code}`;
   else if (code === 2 && p.outputs.some((o) => existsSync(o))) failure = 'exit 2 but an output exists under its final name';
+  if (failure === null && code === 0) failure = postconditionFailure(p, io.stdout);
   if (failure === null) {
     const temps = [...strayTemps(work), ...strayTemps(join(work, 'out'))];
     if (temps.length > 0) failure = `temporary files left: ${temps.join(', ')}`;

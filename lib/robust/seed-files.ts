@@ -24,10 +24,11 @@ export const TINY_DURATION_S = 12;
 /**
  * Write tiny.edf or tiny.bdf (EDF+C/BDF+C, 2 signals, 500 Hz, 12 s, 1 s records) into `dir`:
  * seeded noise whose amplitude is 3× during "reference contraction" (1–3 s), 0.05× during
- * "break" (4–6 s) and 1× elsewhere, with those annotations and "lifting" (7–11 s).
+ * "break" (4–6 s) and 1× elsewhere, with those annotations and "lifting" (7–11 s). A longer
+ * `duration_s` (whole seconds ≥ 12) makes a bigger file of the same design (kill and timing tests).
  * @returns the path written
  */
-export function writeTinyRecording(dir: string, name: 'tiny.edf' | 'tiny.bdf' = 'tiny.edf'): string {
+export function writeTinyRecording(dir: string, name = 'tiny.edf', duration_s = TINY_DURATION_S): string {
   const path = join(dir, name);
   const w = new EdfWriter(path, ['EMG R', 'EMG L'].map((label) => ({
     label, unit: 'uV', rate_hz: TINY_RATE_HZ, physical_min: -2000, physical_max: 2000, prefilter: 'HP:10Hz', transducer: 'AgAgCl',
@@ -40,7 +41,7 @@ export function writeTinyRecording(dir: string, name: 'tiny.edf' | 'tiny.bdf' = 
     ],
   });
   const rng = new SplitMix64(20260105);
-  const n = TINY_RATE_HZ * TINY_DURATION_S;
+  const n = TINY_RATE_HZ * duration_s;
   const a = new Float64Array(n);
   const b = new Float64Array(n);
   for (let i = 0; i < n; i++) {
