@@ -113,6 +113,18 @@ export const dspMsg = {
   frequencyRange: (fmin: number, fmax: number) => `frequency range must have fminHz below fmaxHz, got ${fmin}…${fmax} Hz`,
   spectrumLength: (lf: number, lp: number) => `frequencies and PSD must have the same length, got ${lf} and ${lp}`,
   medianConvention: (got: string) => `median frequency convention must be one of bin, interp, got ${got}`,
+  sosA0: (row: number, got: number) => `sos row ${row}: a0 must be 1, got ${got}`,
+  outputBuffer: (need: number, got: number) => `output buffer must hold at least ${need} samples, got ${got}`,
+  spectrumBins: (got: number) => `spectrum must have at least 8 bins, got ${got}`,
+  blockSize: (got: number) => `blockSize must be a whole number of samples ≥ 1, got ${got}`,
+  pushAfterFlush: () => 'ZeroPhaseFilter: push() after flush(); create a new filter for a new stream',
+  // spectrum command
+  spectrumUnknownSignal: (name: string, labels: string) => `--signal: no signal named '${name}' (signals: ${labels})`,
+  spectrumSpan: (start: number, end: number, duration: number) =>
+    `--start ${start} / --end ${end}: expected 0 <= start < end <= ${duration} s (recording duration)`,
+  spectrumOverlap: (got: number) => `--overlap must be a fraction from 0 to below 1 (e.g. 0.5), got ${got}`,
+  spectrumTooShort: (file: string, label: string, samples: number, nperseg: number) =>
+    `${file}: signal '${label}': the span holds ${samples} samples, fewer than one segment (nperseg ${nperseg}); use a longer span or a smaller --nperseg`,
 };
 
 // ---------------------------------------------------------------------------------------------

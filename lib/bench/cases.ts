@@ -1,11 +1,13 @@
 // The benchmark cases. Each runs in its own child process on the bench file and reports how much it
 // read; the runner measures wall time and peak RSS. Add a case by appending to `benchCases`.
-import { rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
 import { convertRecording } from '../cli/convert.js';
 import { inspectRecording } from '../cli/inspect.js';
 import { openRecording } from '../io/open-recording.js';
+import { loadJob } from '../job/load-job.js';
+import { runStudy } from '../study/run-study.js';
 
 export interface BenchWork {
   /** Input bytes processed. */
@@ -75,3 +77,50 @@ export const benchCases: BenchCase[] = [
     },
   },
 ];
+
+/**
+ * A job over the bench file: one worker, all four channels, MVE from the first 60 s, three task segments splitting the rest of the recording.
+ */
+function benchJob(file: string, duration_s: number): string {
+  const dir = mkdtempSync(join(tmpdir(), 'shiftload-bench-job-'));
+  const third = Math.floor((duration_s - 120) / 3);
+  const seg = (label: string, a: number, b: number) => `          - { label: ${label}, start_s: ${a}, end_s: ${b} }`;
+  const text = [
+    'format: shiftload-job/1',
+    'title: bench',
+    // the bench signal is stationary, so its rest span is as loud as its reference: no noise correction
+    'settings: { noise_correction: false }',
+    'workers:',
+    '  - id: B1',
+    `    reference: { file: ${JSON.stringify(file)}, start_s: 0, end_s: 60 }`,
+    '    recordings:',
+    `      - file: ${JSON.stringify(file)}`,
+    '        condition: bench',
+    '        channels:',
+    ...[1, 2, 3, 4].map((c) => `          - { signal: "EMG ch${c}", muscle: "muscle ${c}" }`),
+    '        segments:',
+    seg('task-a', 120, 120 + third), seg('task-b', 120 + third, 120 + 2 * third), seg('task-c', 120 + 2 * third, duration_s),
+  ].join('\n') + '\n';
+  writeFileSync(join(dir, 'job.yaml'), text);
+  return join(dir, 'job.yaml');
+}
+
+for (const jobs of [1, 2]) benchCases.push({
+  name: jobs === 1 ? 'analyze' : `analyze-j${jobs}`,
+  describe: `shiftload analyze --jobs ${jobs}: zero-phase 30–400 Hz band-pass, 0.1-s RMS at 20 Hz, MVE from 60 s, 3 task segments (results only)`,
+  async run(file) {
+    const { bytes, samples } = await fileInfo(file);
+    const rec = await openRecording(file);
+    const duration = rec.info.duration_s;
+    await rec.close();
+    const jobPath = benchJob(file, duration);
+    try {
+      const study = await loadJob(jobPath);
+      const res = await runStudy(study, { jobs });
+      const p50 = res.rows.filter((r) => r.segment === 'task-a').map((r) => (r.p50 ?? NaN).toFixed(3)).join('/');
+      return { bytes, samples, check: `rows=${res.rows.length} task-a p50=${p50}` };
+    } finally {
+      rmSync(join(jobPath, '..'), { recursive: true, force: true });
+    }
+  },
+});

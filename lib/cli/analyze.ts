@@ -1,8 +1,11 @@
 // `shiftload analyze JOB [--out DIR]`: the whole study job — job file in, results.json,
 // segments.csv and report.pdf out.
+import { availableParallelism } from 'node:os';
 import { basename, dirname, extname, join, relative } from 'node:path';
 import type { CommandModule } from 'yargs';
+import { UsageError } from '../errors.js';
 import { loadJob } from '../job/load-job.js';
+import { msg } from '../messages.js';
 import type { Study } from '../job/study-types.js';
 import { compareConditions } from '../study/compare-conditions.js';
 import type { StudyResults } from '../study/results.js';
@@ -16,6 +19,8 @@ export interface AnalyzeOptions {
   force?: boolean;
   report?: boolean;
   svg?: boolean;
+  /** Worker threads (≥ 2) or inline (1). @default defaultJobs() */
+  jobs?: number;
 }
 
 export interface AnalyzeOutcome {
@@ -23,6 +28,14 @@ export interface AnalyzeOutcome {
   results: StudyResults;
   outDir: string;
   files: string[];
+}
+
+/**
+ * Worker threads used when --jobs is not given: one per core, at most 4 (reading, not filtering,
+ * limits beyond that on typical machines).
+ */
+export function defaultJobs(): number {
+  return Math.max(1, Math.min(4, availableParallelism()));
 }
 
 /** Default output folder: beside the job file, named after it. */
@@ -48,7 +61,7 @@ export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: C
   const bar = new ProgressBar(io, 'analyzing');
   let results: StudyResults;
   try {
-    results = await runStudy(study, { onProgress: (d, t, note) => bar.update(d, t, note) });
+    results = await runStudy(study, { jobs: options.jobs ?? defaultJobs(), onProgress: (d, t, note) => bar.update(d, t, note) });
   } finally {
     bar.stop();
   }
@@ -78,7 +91,7 @@ export function summaryText(outcome: AnalyzeOutcome): string {
   return lines.join('\n') + '\n';
 }
 
-type AnalyzeArgs = WithIO & { job: string; out?: string; force: boolean; report: boolean; svg: boolean };
+type AnalyzeArgs = WithIO & { job: string; out?: string; force: boolean; report: boolean; svg: boolean; jobs: number };
 
 export const analyzeCommand: CommandModule<object, AnalyzeArgs> = {
   command: 'analyze <job>',
@@ -89,10 +102,13 @@ export const analyzeCommand: CommandModule<object, AnalyzeArgs> = {
     .option('force', { type: 'boolean', default: false, describe: 'reuse an output folder that already holds files' })
     .option('report', { type: 'boolean', default: true, describe: 'write report.pdf (--no-report to skip)' })
     .option('svg', { type: 'boolean', default: false, describe: 'also write every chart as SVG into <out>/charts' })
+    .option('jobs', { alias: 'j', type: 'number', default: defaultJobs(), defaultDescription: 'cores, at most 4', describe: 'worker threads (recordings and channel groups processed at once); results are identical for any value' })
     .example('$0 analyze study/job.yaml', 'analyze and write study/job-results/{results.json,segments.csv,report.pdf}')
-    .example('$0 analyze job.yaml -o out --force --no-report', 'results only, into an existing folder') as never,
+    .example('$0 analyze job.yaml -o out --force --no-report', 'results only, into an existing folder')
+    .example('$0 analyze job.yaml --jobs 2', 'use two cores for a study of many recordings') as never,
   handler: async (argv) => {
-    const outcome = await analyzeJob(argv.job, { out: argv.out, force: argv.force, report: argv.report, svg: argv.svg }, argv.io);
+    if (!(Number.isInteger(argv.jobs) && argv.jobs >= 1 && argv.jobs <= 64)) throw new UsageError(msg.badOption('jobs', 'a whole number from 1 to 64', String(argv.jobs)));
+    const outcome = await analyzeJob(argv.job, { out: argv.out, force: argv.force, report: argv.report, svg: argv.svg, jobs: argv.jobs }, argv.io);
     argv.io.out(summaryText(outcome));
   },
 };

@@ -10,6 +10,7 @@ import { demoCommand } from './demo.js';
 import { initCommand } from './init.js';
 import { schemaCommand } from './schema.js';
 import { simulateCommand } from './simulate.js';
+import { spectrumCommand } from './spectrum.js';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export const commands: CommandModule<any, any>[] = [
@@ -21,5 +22,6 @@ export const commands: CommandModule<any, any>[] = [
   schemaCommand,
   inspectCommand,
   convertCommand,
+  spectrumCommand,
   simulateCommand,
 ];

@@ -112,6 +112,14 @@ export class BandFilter {
 
   /** Feed the next chunk (not modified). Returns the filtered samples now final. */
   push(x: ArrayLike<number>): Float64Array {
+    // fast path: no NaN in the chunk, filter it as it is (ZeroPhaseFilter copies, never mutates)
+    let hasNaN = false;
+    for (let i = 0; i < x.length; i++) if (x[i] !== x[i]) { hasNaN = true; break; }
+    if (!hasNaN) {
+      if (x.length > 0) this.last = x[x.length - 1];
+      this.nIn += x.length;
+      return this.restoreNaN(this.zp.push(x));
+    }
     const clean = new Float64Array(x.length);
     let last = this.last;
     const runs = this.runs;

@@ -7,6 +7,6 @@ import type { Sos } from './sos.js';
 export function checkSos(sos: Sos): number {
   if (sos.length < 6 || sos.length % 6 !== 0) throw new UsageError(dspMsg.sosShape(sos.length));
   const n = sos.length / 6;
-  for (let s = 0; s < n; s++) if (sos[s * 6 + 3] !== 1) throw new UsageError(`sos row ${s}: a0 must be 1, got ${sos[s * 6 + 3]}`);
+  for (let s = 0; s < n; s++) if (sos[s * 6 + 3] !== 1) throw new UsageError(dspMsg.sosA0(s, sos[s * 6 + 3]));
   return n;
 }

@@ -105,14 +105,16 @@ export class RmsEnvelope {
     let m = 0;
     const sq = this.sq, nan = this.nan, mask = this.mask;
     let n = this.n;
+    let nextEnd = this.nextEnd;
     for (let i = 0; i < x.length; i++) {
       const v = x[i];
       const j = n & mask;
       if (v === v) { sq[j] = v * v; nan[j] = 0; } else { sq[j] = 0; nan[j] = 1; }
       n++;
-      if (n === this.nextEnd) {
+      if (n === nextEnd) {
         this.n = n;
         out[m++] = this.emit(n);
+        nextEnd = this.nextEnd;
       }
     }
     this.n = n;

@@ -36,7 +36,7 @@ export class SosFilter {
   push(x: ArrayLike<number>, out?: Float64Array): Float64Array {
     let y: Float64Array;
     if (out) {
-      if (out.length < x.length) throw new UsageError(`output buffer must hold ${x.length} samples, got ${out.length}`);
+      if (out.length < x.length) throw new UsageError(dspMsg.outputBuffer(x.length, out.length));
       y = out.length === x.length ? out : out.subarray(0, x.length);
       if (y !== x) y.set(x);
     } else {

@@ -12,6 +12,8 @@ export interface WelchOptions {
   nperseg?: number;
   /** Samples shared by consecutive segments (0…nperseg−1). @default floor(nperseg/2) (scipy) */
   noverlap?: number;
+  /** Segments holding a NaN: 'propagate' (PSD becomes NaN, as scipy) or 'skip' (left out, counted). @default 'propagate' */
+  nan?: 'propagate' | 'skip';
 }
 
 /** Defaults as scipy.signal.welch. */
@@ -24,6 +26,8 @@ export interface WelchResult {
   psd: Float64Array;
   /** Number of segments averaged. */
   segments: number;
+  /** Segments left out because they held a NaN (option nan: 'skip'). */
+  skipped_segments: number;
   fs: number;
   nperseg: number;
   noverlap: number;
@@ -35,7 +39,7 @@ export interface WelchResult {
  * trailing samples that do not fill a segment are ignored; so any chunk split gives the same PSD
  * as welch() on the whole signal. Each segment: minus its mean, times the periodic Hann window
  * 0.5 − 0.5·cos(2πn/nperseg), |rfft|² / (fs·Σw²), bins 1…nperseg/2−1 doubled; segments averaged.
- * NaN in a segment makes the PSD NaN (screen the span first).
+ * NaN in a segment makes the PSD NaN (scipy's behaviour), or with nan: 'skip' the segment is left out.
  * @throws UsageError for nperseg not a power of two in 8…2^20 or noverlap out of range
  * @example const w = new WelchAccumulator({ fs: 1000, nperseg: 1024, noverlap: 512 }); w.push(x); w.result();
  * Source: Welch PD (1967) IEEE Trans Audio Electroacoust 15(2):70–73; conventions of SciPy 1.17 welch.
@@ -50,8 +54,10 @@ export class WelchAccumulator {
   private readonly work: Float64Array;
   private readonly spec: Float64Array;
   private readonly sum: Float64Array;
+  private readonly skipNaN: boolean;
   private fill = 0;
   private count = 0;
+  private skipped = 0;
 
   constructor(options: WelchOptions) {
     checkSamplingRate(options.fs);
@@ -62,6 +68,7 @@ export class WelchAccumulator {
     this.fs = options.fs;
     this.nperseg = n;
     this.noverlap = nov;
+    this.skipNaN = options.nan === 'skip';
     this.window = new Float64Array(n);
     let s2 = 0;
     for (let i = 0; i < n; i++) {
@@ -102,6 +109,7 @@ export class WelchAccumulator {
     const n = this.nperseg, seg = this.seg, work = this.work, win = this.window, spec = this.spec, sum = this.sum;
     let mean = 0;
     for (let i = 0; i < n; i++) mean += seg[i];
+    if (mean !== mean && this.skipNaN) { this.skipped++; return; }
     mean /= n;
     for (let i = 0; i < n; i++) work[i] = (seg[i] - mean) * win[i];
     cachedFft(n).realTransform(spec, work);
@@ -123,7 +131,7 @@ export class WelchAccumulator {
       f[k] = (k * this.fs) / this.nperseg;
       psd[k] = this.count > 0 ? this.sum[k] / this.count : NaN;
     }
-    return { f_hz: f, psd, segments: this.count, fs: this.fs, nperseg: this.nperseg, noverlap: this.noverlap };
+    return { f_hz: f, psd, segments: this.count, skipped_segments: this.skipped, fs: this.fs, nperseg: this.nperseg, noverlap: this.noverlap };
   }
 }
 

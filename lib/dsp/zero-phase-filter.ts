@@ -12,8 +12,9 @@
 // exactly as scipy; so the first and last outputs are exact and the middle ones are within the bound.
 // Memory: two Float64Arrays of B + L samples per filter, whatever the stream length.
 // Work: the backward pass runs (B + L)/B times per sample (≈ 1.02 for a 20–450 Hz band-pass at
-// 2 kHz with B = 64k; ≈ 1.2 with a 50 Hz notch, whose slow poles need L ≈ 11.6k).
+// 2 kHz with B = 64k; ≈ 1.125 with a 50 Hz notch, whose slow poles need L ≈ 11.6k, so B = 8·L).
 import { UsageError } from '../errors.js';
+import { dspMsg } from '../messages.js';
 import { checkSos } from './check-sos.js';
 import type { Sos } from './sos.js';
 import { sosfiltInPlace, sosfiltReverseInPlace } from './sosfilt-in-place.js';
@@ -24,7 +25,7 @@ import { zeroPhaseOverlap } from './zero-phase-overlap.js';
 export interface ZeroPhaseFilterOptions {
   /** Edge extension at the true start and end: 'odd' (scipy's default) or 'none'. @default 'odd' */
   padtype?: 'odd' | 'none';
-  /** Outputs finished per backward run, samples (at least 4·overlap is used). @default 65536 */
+  /** Outputs finished per backward run, samples (at least 8·overlap is used). @default 65536 */
   blockSize?: number;
   /** Bound on the block error as a fraction of full scale (chooses the overlap). @default 1e-12 */
   tolerance?: number;
@@ -75,8 +76,8 @@ export class ZeroPhaseFilter {
     this.pad = this.padlen;
     this.overlap = Math.max(zeroPhaseOverlap(sos, options.tolerance ?? 1e-12), this.padlen + 1);
     const b = options.blockSize ?? 65536;
-    if (!(Number.isInteger(b) && b >= 1)) throw new UsageError(`blockSize must be a whole number of samples ≥ 1, got ${b}`);
-    this.blockSize = Math.max(b, 4 * this.overlap);
+    if (!(Number.isInteger(b) && b >= 1)) throw new UsageError(dspMsg.blockSize(b));
+    this.blockSize = Math.max(b, 8 * this.overlap);
     this.buf = new Float64Array(this.blockSize + this.overlap);
     this.scratch = new Float64Array(this.blockSize + this.overlap);
     this.head = new Float64Array(this.padlen + 1);
@@ -85,7 +86,7 @@ export class ZeroPhaseFilter {
 
   /** Feed the next chunk (not modified); returns the outputs that are final now. */
   push(x: ArrayLike<number>): Float64Array {
-    if (this.flushed) throw new UsageError('ZeroPhaseFilter: push() after flush()');
+    if (this.flushed) throw new UsageError(dspMsg.pushAfterFlush());
     const n = x.length;
     // keep the last padlen + 1 raw samples for the odd extension at the end
     const rl = this.recent.length;
@@ -150,7 +151,8 @@ export class ZeroPhaseFilter {
     while (i < to) {
       const m = Math.min(cap - this.bufLen, to - i);
       const b0 = this.bufLen;
-      for (let j = 0; j < m; j++) this.buf[b0 + j] = src[i + j];
+      if (src instanceof Float64Array) this.buf.set(src.subarray(i, i + m), b0);
+      else for (let j = 0; j < m; j++) this.buf[b0 + j] = src[i + j];
       sosfiltInPlace(this.sos, this.fstate, this.buf, b0, b0 + m);
       this.bufLen += m;
       i += m;

@@ -15,7 +15,9 @@ import type { Study, StudyRecording, StudySpan } from '../job/study-types.js';
 import { findingText } from '../messages.js';
 import { toolVersion } from '../cli/tool-version.js';
 import { decimateTrace } from './decimate-trace.js';
+import type { RecordingJob, RecordingJobResult } from './process-recording.js';
 import { readEnvelopes, type FilterSpec } from './read-envelopes.js';
+import { RecordingPool } from './worker-pool.js';
 import type { EvaMatrix, EnvelopeTrace, Finding, LoadUnit, ReferenceValue, ResultRow, StudyResults } from './results.js';
 
 export interface RunStudyOptions {
@@ -23,6 +25,12 @@ export interface RunStudyOptions {
   onProgress?: (done_s: number, total_s: number, note: string) => void;
   /** Reader options (chunk size; tests prove results do not depend on it). */
   open?: OpenOptions;
+  /**
+   * Field recordings processed at once: 1 = one after another on this thread; N ≥ 2 = N worker
+   * threads. Results are identical for every value.
+   * @default 1
+   */
+  jobs?: number;
 }
 
 /** Per worker × channel position: the levels used to correct and normalize its envelopes. */
@@ -103,162 +111,184 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     return values;
   }
 
-  for (const worker of study.workers) {
-    const pending: PendingChannel[] = [];
-    const levels = new Map<string, ChannelLevels>(); // key: recording id + channel index
+  // Field recordings: with worker threads every recording is queued at once (the pool runs
+  // `jobs` of them at a time) and its channels are split into up to `jobs` groups, so that even a
+  // single long recording keeps every core busy (each group reads the file itself; reading is
+  // cheap next to filtering). Inline, each recording is read when its turn comes.
+  const jobs = Math.max(1, Math.floor(options.jobs ?? 1));
+  const pool = new RecordingPool(jobs > 1 ? jobs : 0);
+  const recordingJob = (rec: StudyRecording, channels: number[]): RecordingJob => ({
+    file: rec.file, signals: channels.map((c) => rec.channels[c]!.signalIndex), filter,
+    envelope: { window_s: s.rms_window_s, rate_hz: rate },
+    second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
+    open: openOptions(rec.rate_hz),
+  });
+  const queued = new Map<string, Promise<RecordingJobResult>>();
+  if (jobs > 1) {
+    for (const w of study.workers) for (const rec of w.recordings) {
+      const groups = channelGroups(rec.channels.length, jobs);
+      const parts = groups.map((g) => pool.run(recordingJob(rec, g)));
+      const p = Promise.all(parts).then((rs) => mergeGroups(rs, groups));
+      p.catch(() => { /* awaited (and reported) in order below */ });
+      queued.set(rec.id, p);
+    }
+  }
+  try {
+    for (const worker of study.workers) {
+      const pending: PendingChannel[] = [];
+      const levels = new Map<string, ChannelLevels>(); // key: recording id + channel index
 
-    for (const rec of worker.recordings) {
-      // Noise and reference levels for each channel of this recording.
-      for (let c = 0; c < rec.channels.length; c++) {
+      for (const rec of worker.recordings) {
+        // Noise and reference levels for each channel of this recording.
+        for (let c = 0; c < rec.channels.length; c++) {
+          const ch = rec.channels[c]!;
+          const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
+          let noise: number | null = null;
+          if (s.noise_correction && rec.rest.length > 0) {
+            let min = Infinity;
+            for (const sp of rec.rest) {
+              const v = await spanEnvelope(sp, sp.signalIndices[c]!, s.noise_window_s, rate);
+              for (let i = 0; i < v.length; i++) if (v[i]! < min) min = v[i]!;
+            }
+            noise = Number.isFinite(min) ? min : null;
+            if (noise === null) findings.push({ severity: 'warning', code: 'noise-unavailable', where, message: findingText.noiseUnavailable(ch.signal) });
+          }
+          const correct = (v: number) => (noise === null ? v : noiseCorrect(v, noise));
+          let reference: number | null = null;
+          if (s.normalize === 'mve' || s.normalize === 'rve') {
+            reference = await referenceLevel(rec.reference, c, s.normalize, correct);
+            if (reference !== null && !(reference > 0)) {
+              findings.push({ severity: 'error', code: 'reference-zero', where, message: findingText.referenceZero(ch.signal, noise) });
+              reference = null;
+            }
+          }
+          let mve: number | null = null;
+          if (study.gapThreshold.convertPerWorker && rec.mveReference.length > 0) {
+            mve = await referenceLevel(rec.mveReference, c, 'mve', correct);
+          }
+          levels.set(`${rec.id}\u0000${c}`, { noise_uv: noise, reference_uv: reference, mve_uv: mve });
+        }
+
+        // The field recording: one streaming pass for all its channels.
+        const base = done;
+        const res = await (queued.get(rec.id) ?? pool.run(recordingJob(rec, rec.channels.map((_, c) => c)), (d) => progress(base + d, rec.fileAsWritten)));
+        done = base + rec.duration_s;
+        progress(done, rec.fileAsWritten);
+        if (res.discontinuities > 0) {
+          findings.push({ severity: 'info', code: 'discontinuous', where: { worker: worker.id, recording: rec.fileAsWritten }, message: findingText.discontinuous(res.discontinuities) });
+        }
+        res.channels.forEach((chRes, c) => {
+          filterByRate.set(chRes.fs, chRes.filter);
+          const lv = levels.get(`${rec.id}\u0000${c}`)!;
+          const env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
+          const peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);
+          pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples });
+        });
+      }
+
+      // Task-peak: the highest reference-window RMS of that muscle over all the worker's recordings.
+      if (s.normalize === 'task-peak') {
+        const peaks = new Map<string, number>();
+        for (const p of pending) {
+          const muscle = p.rec.channels[p.c]!.muscle;
+          let m = peaks.get(muscle) ?? -Infinity;
+          const e = p.peakEnv!;
+          for (let i = 0; i < e.length; i++) if (e[i]! > m) m = e[i]!;
+          peaks.set(muscle, m);
+        }
+        for (const p of pending) {
+          const lv = levels.get(`${p.rec.id}\u0000${p.c}`)!;
+          const m = peaks.get(p.rec.channels[p.c]!.muscle)!;
+          lv.reference_uv = m > 0 && Number.isFinite(m) ? m : null;
+        }
+      }
+
+      for (const p of pending) {
+        const { rec, c } = p;
         const ch = rec.channels[c]!;
-        const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
-        let noise: number | null = null;
-        if (s.noise_correction && rec.rest.length > 0) {
-          let min = Infinity;
-          for (const sp of rec.rest) {
-            const v = await spanEnvelope(sp, sp.signalIndices[c]!, s.noise_window_s, rate);
-            for (let i = 0; i < v.length; i++) if (v[i]! < min) min = v[i]!;
-          }
-          noise = Number.isFinite(min) ? min : null;
-          if (noise === null) findings.push({ severity: 'warning', code: 'noise-unavailable', where, message: findingText.noiseUnavailable(ch.signal) });
-        }
-        const correct = (v: number) => (noise === null ? v : noiseCorrect(v, noise));
-        let reference: number | null = null;
-        if (s.normalize === 'mve' || s.normalize === 'rve') {
-          reference = await referenceLevel(rec.reference, c, s.normalize, correct);
-          if (reference !== null && !(reference > 0)) {
-            findings.push({ severity: 'error', code: 'reference-zero', where, message: findingText.referenceZero(ch.signal, noise) });
-            reference = null;
-          }
-        }
-        let mve: number | null = null;
-        if (study.gapThreshold.convertPerWorker && rec.mveReference.length > 0) {
-          mve = await referenceLevel(rec.mveReference, c, 'mve', correct);
-        }
-        levels.set(`${rec.id}\u0000${c}`, { noise_uv: noise, reference_uv: reference, mve_uv: mve });
-      }
-
-      // The field recording: one streaming pass for all its channels.
-      const base = done;
-      const res = await readEnvelopes({
-        file: rec.file, signals: rec.channels.map((ch) => ch.signalIndex), start_s: 0, end_s: null, filter,
-        envelope: { window_s: s.rms_window_s, rate_hz: rate },
-        second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
-        open: openOptions(rec.rate_hz),
-        onProgress: (d) => progress(base + d, rec.fileAsWritten),
-      });
-      done = base + rec.duration_s;
-      if (res.discontinuities > 0) {
-        findings.push({ severity: 'info', code: 'discontinuous', where: { worker: worker.id, recording: rec.fileAsWritten }, message: findingText.discontinuous(res.discontinuities) });
-      }
-      res.channels.forEach((chRes, c) => {
-        filterByRate.set(chRes.fs, chRes.filter);
         const lv = levels.get(`${rec.id}\u0000${c}`)!;
-        const env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
-        const peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);
-        pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples });
-      });
-    }
-
-    // Task-peak: the highest reference-window RMS of that muscle over all the worker's recordings.
-    if (s.normalize === 'task-peak') {
-      const peaks = new Map<string, number>();
-      for (const p of pending) {
-        const muscle = p.rec.channels[p.c]!.muscle;
-        let m = peaks.get(muscle) ?? -Infinity;
-        const e = p.peakEnv!;
-        for (let i = 0; i < e.length; i++) if (e[i]! > m) m = e[i]!;
-        peaks.set(muscle, m);
-      }
-      for (const p of pending) {
-        const lv = levels.get(`${p.rec.id}\u0000${p.c}`)!;
-        const m = peaks.get(p.rec.channels[p.c]!.muscle)!;
-        lv.reference_uv = m > 0 && Number.isFinite(m) ? m : null;
-      }
-    }
-
-    for (const p of pending) {
-      const { rec, c } = p;
-      const ch = rec.channels[c]!;
-      const lv = levels.get(`${rec.id}\u0000${c}`)!;
-      const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
-      references.push({
-        worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
-        method: s.normalize, reference_uv: lv.reference_uv, noise_uv: lv.noise_uv, mve_uv: lv.mve_uv,
-        spans: rec.reference.map((sp) => ({ file: sp.fileAsWritten, start_s: sp.start_s, end_s: sp.end_s, annotation: sp.annotation })),
-      });
-      if (p.clipped > 0) {
-        findings.push({ severity: 'warning', code: 'clipping', where, message: findingText.clipping(p.clipped, p.samples) });
-      }
-      const normalizing = s.normalize !== 'none';
-      if (normalizing && lv.reference_uv === null) {
-        findings.push({ severity: 'error', code: 'no-reference', where, message: findingText.noReference(ch.signal, s.normalize) });
-      }
-      const env = !normalizing ? p.env : lv.reference_uv === null ? p.env.map(() => NaN) : normalizeEnvelope(p.env, lv.reference_uv);
-
-      // The gap threshold in the envelope's unit.
-      let threshold = study.gapThreshold.value;
-      if (study.gapThreshold.convertPerWorker) {
-        if (lv.mve_uv !== null && lv.reference_uv !== null && lv.mve_uv > 0) {
-          threshold = thresholdToRve(study.gapThreshold.value, rveOverMve(lv.reference_uv, lv.mve_uv));
-        } else {
-          threshold = NaN;
-          findings.push({ severity: 'error', code: 'threshold-not-converted', where, message: findingText.thresholdNotConverted(ch.signal) });
-        }
-      }
-
-      // One row per task label: every occurrence of the label is joined, with a NaN between
-      // occurrences so that no gap, run or EVA period spans two of them.
-      const tasks = groupSegments(rec.segments, rec.duration_s);
-      let maxP90 = -Infinity;
-      for (const sg of tasks) {
-        const slice = joinSlices(env, rate, sg.spans);
-        if (sg.shortest_s < s.rms_window_s) {
-          findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.shortest_s, s.rms_window_s) });
-        }
-        const m = Number.isFinite(threshold)
-          ? segmentMeasures(slice, {
-            rate_hz: rate, percentiles: s.percentiles, gap_threshold: threshold, min_gap_s: s.gap_min_s,
-            max_gap_s: s.gap_max_s, rest_counts: s.rest_counts, sustained_threshold: threshold, sustained_min_s: s.sustained_min_s,
-          })
-          : null;
-        const levelsOf = m ? m.levels : Object.fromEntries(s.percentiles.map((q) => [`p${q}`, null]));
-        const valid_s = m ? m.valid_s : 0;
-        const row = {
+        const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
+        references.push({
           worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
-          segment: sg.label, start_s: sg.start_s, end_s: sg.end_s, segments: sg.spans.length, segment_s: sg.total_s, valid_s, unit,
-          reference_uv: lv.reference_uv, noise_uv: lv.noise_uv,
-          ...levelsOf,
-          gap_threshold: threshold,
-          gaps: m ? m.gaps : 0,
-          gaps_per_min: m ? m.gaps_per_min : null,
-          rest_pct: m ? m.rest_pct : null,
-          longest_without_gap_s: m ? m.longest_without_gap_s : null,
-          sustained_pct: m ? m.sustained_pct : null,
-        } as ResultRow;
-        rows.push(row);
-        const excluded = sg.total_s - valid_s;
-        if (m && excluded > Math.max(sg.spans.length / rate, 0.01 * sg.total_s)) {
-          findings.push({ severity: 'info', code: 'excluded-time', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.excludedTime(sg.label, excluded, sg.total_s) });
+          method: s.normalize, reference_uv: lv.reference_uv, noise_uv: lv.noise_uv, mve_uv: lv.mve_uv,
+          spans: rec.reference.map((sp) => ({ file: sp.fileAsWritten, start_s: sp.start_s, end_s: sp.end_s, annotation: sp.annotation })),
+        });
+        if (p.clipped > 0) {
+          findings.push({ severity: 'warning', code: 'clipping', where, message: findingText.clipping(p.clipped, p.samples) });
         }
-        const p90 = (row as unknown as Record<string, number | null>)[`p${Math.max(...s.percentiles)}`];
-        if (typeof p90 === 'number' && p90 > maxP90) maxP90 = p90;
-        if (slice.length > 0) {
-          const e = evaMatrix(slice, { rate_hz: rate, amplitude_edges: s.eva.amplitude_edges, duration_edges_s: s.eva.duration_edges_s });
-          eva.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, amplitude_edges: e.amplitude_edges, duration_edges_s: e.duration_edges_s, percent_time: e.percent_time });
-          apdf.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, levels: apdfCurve(slice) });
+        const normalizing = s.normalize !== 'none';
+        if (normalizing && lv.reference_uv === null) {
+          findings.push({ severity: 'error', code: 'no-reference', where, message: findingText.noReference(ch.signal, s.normalize) });
         }
+        const env = !normalizing ? p.env : lv.reference_uv === null ? p.env.map(() => NaN) : normalizeEnvelope(p.env, lv.reference_uv);
+
+        // The gap threshold in the envelope's unit.
+        let threshold = study.gapThreshold.value;
+        if (study.gapThreshold.convertPerWorker) {
+          if (lv.mve_uv !== null && lv.reference_uv !== null && lv.mve_uv > 0) {
+            threshold = thresholdToRve(study.gapThreshold.value, rveOverMve(lv.reference_uv, lv.mve_uv));
+          } else {
+            threshold = NaN;
+            findings.push({ severity: 'error', code: 'threshold-not-converted', where, message: findingText.thresholdNotConverted(ch.signal) });
+          }
+        }
+
+        // One row per task label: every occurrence of the label is joined, with a NaN between
+        // occurrences so that no gap, run or EVA period spans two of them.
+        const tasks = groupSegments(rec.segments, rec.duration_s);
+        let maxP90 = -Infinity;
+        for (const sg of tasks) {
+          const slice = joinSlices(env, rate, sg.spans);
+          if (sg.shortest_s < s.rms_window_s) {
+            findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.shortest_s, s.rms_window_s) });
+          }
+          const m = Number.isFinite(threshold)
+            ? segmentMeasures(slice, {
+              rate_hz: rate, percentiles: s.percentiles, gap_threshold: threshold, min_gap_s: s.gap_min_s,
+              max_gap_s: s.gap_max_s, rest_counts: s.rest_counts, sustained_threshold: threshold, sustained_min_s: s.sustained_min_s,
+            })
+            : null;
+          const levelsOf = m ? m.levels : Object.fromEntries(s.percentiles.map((q) => [`p${q}`, null]));
+          const valid_s = m ? m.valid_s : 0;
+          const row = {
+            worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
+            segment: sg.label, start_s: sg.start_s, end_s: sg.end_s, segments: sg.spans.length, segment_s: sg.total_s, valid_s, unit,
+            reference_uv: lv.reference_uv, noise_uv: lv.noise_uv,
+            ...levelsOf,
+            gap_threshold: threshold,
+            gaps: m ? m.gaps : 0,
+            gaps_per_min: m ? m.gaps_per_min : null,
+            rest_pct: m ? m.rest_pct : null,
+            longest_without_gap_s: m ? m.longest_without_gap_s : null,
+            sustained_pct: m ? m.sustained_pct : null,
+          } as ResultRow;
+          rows.push(row);
+          const excluded = sg.total_s - valid_s;
+          if (m && excluded > Math.max(sg.spans.length / rate, 0.01 * sg.total_s)) {
+            findings.push({ severity: 'info', code: 'excluded-time', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.excludedTime(sg.label, excluded, sg.total_s) });
+          }
+          const p90 = (row as unknown as Record<string, number | null>)[`p${Math.max(...s.percentiles)}`];
+          if (typeof p90 === 'number' && p90 > maxP90) maxP90 = p90;
+          if (slice.length > 0) {
+            const e = evaMatrix(slice, { rate_hz: rate, amplitude_edges: s.eva.amplitude_edges, duration_edges_s: s.eva.duration_edges_s });
+            eva.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, amplitude_edges: e.amplitude_edges, duration_edges_s: e.duration_edges_s, percent_time: e.percent_time });
+            apdf.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, levels: apdfCurve(slice) });
+          }
+        }
+        if ((unit === '%MVE') && maxP90 > 100) {
+          findings.push({ severity: 'warning', code: 'reference-weak', where, message: findingText.referenceWeak(ch.signal, maxP90) });
+        }
+        const tr = decimateTrace(env, rate, s.trace_step_s);
+        traces.push({
+          worker: worker.id, condition: rec.condition, muscle: ch.muscle, recording: rec.fileAsWritten, unit,
+          step_s: tr.step_s, mean: tr.mean, max: tr.max,
+          segments: rec.segments.map((sg) => ({ label: sg.label, start_s: sg.start_s, end_s: sg.end_s })),
+        });
       }
-      if ((unit === '%MVE') && maxP90 > 100) {
-        findings.push({ severity: 'warning', code: 'reference-weak', where, message: findingText.referenceWeak(ch.signal, maxP90) });
-      }
-      const tr = decimateTrace(env, rate, s.trace_step_s);
-      traces.push({
-        worker: worker.id, condition: rec.condition, muscle: ch.muscle, recording: rec.fileAsWritten, unit,
-        step_s: tr.step_s, mean: tr.mean, max: tr.max,
-        segments: rec.segments.map((sg) => ({ label: sg.label, start_s: sg.start_s, end_s: sg.end_s })),
-      });
     }
+
+  } finally {
+    await pool.close();
   }
 
   async function referenceLevel(spans: StudySpan[], c: number, method: 'mve' | 'rve', correct: (v: number) => number): Promise<number | null> {
@@ -381,4 +411,22 @@ export function joinSlices(env: Float64Array, rate: number, spans: readonly { st
     o += b - a;
   });
   return out;
+}
+
+/** Split channel indices 0…n−1 into at most `k` contiguous groups of near-equal size. */
+export function channelGroups(n: number, k: number): number[][] {
+  const g = Math.max(1, Math.min(n, k));
+  const out: number[][] = [];
+  for (let i = 0; i < g; i++) {
+    const a = Math.floor((i * n) / g), b = Math.floor(((i + 1) * n) / g);
+    out.push(Array.from({ length: b - a }, (_, j) => a + j));
+  }
+  return out;
+}
+
+/** Put the results of channel groups back into one result in channel order. */
+function mergeGroups(parts: RecordingJobResult[], groups: number[][]): RecordingJobResult {
+  const channels: RecordingJobResult['channels'] = [];
+  parts.forEach((r, i) => groups[i]!.forEach((c, j) => { channels[c] = r.channels[j]!; }));
+  return { channels, start_s: parts[0]!.start_s, end_s: parts[0]!.end_s, discontinuities: parts[0]!.discontinuities };
 }

@@ -1,6 +1,7 @@
 // `shiftload analyze` through the CLI: bad jobs stop with exit 2 and one line naming the job file,
 // line and key; outputs are refused over inputs and over non-empty folders; a rerun gives the same
 // bytes.
+import { spawnSync } from 'node:child_process';
 import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -56,6 +57,31 @@ describe('shiftload analyze', () => {
     for (const f of ['results.json', 'segments.csv']) {
       expect(readFileSync(join(dir, 'a', f))).toEqual(readFileSync(join(dir, 'b', f)));
     }
+  });
+
+  it('gives byte-identical outputs with --jobs 1 and --jobs 2 (worker threads)', async () => {
+    const { dir } = job(GOOD);
+    // two recordings so that two workers really run at once
+    copyFileSync(join(dir, 'rec.edf'), join(dir, 'rec2.edf'));
+    const two = GOOD.replace(/(      - file: rec\.edf[\s\S]*)$/, (m) => m + m.replace('rec.edf', 'rec2.edf').replace('condition: a', 'condition: b'));
+    writeFileSync(join(dir, 'job.yaml'), two);
+    const j = join(dir, 'job.yaml');
+    expect((await run(['analyze', j, '--no-report', '-o', join(dir, 'j1'), '--jobs', '1'])).code).toBe(0);
+    const r2 = await run(['analyze', j, '--no-report', '-o', join(dir, 'j2'), '--jobs', '2']);
+    expect(r2.stderr).toBe('');
+    for (const f of ['results.json', 'segments.csv']) {
+      expect(readFileSync(join(dir, 'j2', f))).toEqual(readFileSync(join(dir, 'j1', f)));
+    }
+    expect(JSON.parse(readFileSync(join(dir, 'j2', 'results.json'), 'utf8')).rows.some((r: { condition: string }) => r.condition === 'b')).toBe(true);
+  });
+
+  it('the launcher finishes an analysis with --jobs 2 (worker threads keep the process alive)', () => {
+    const { dir, job: j } = job(GOOD);
+    const bin = new URL('../../bin/shiftload.js', import.meta.url).pathname;
+    const r = spawnSync(process.execPath, [bin, 'analyze', j, '--no-report', '--jobs', '2', '-o', join(dir, 'o')], { encoding: 'utf8' });
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    expect(existsSync(join(dir, 'o', 'results.json'))).toBe(true);
   });
 
   it('refuses a non-empty output folder without --force (exit 2), accepts it with --force', async () => {

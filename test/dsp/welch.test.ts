@@ -74,3 +74,16 @@ describe('meanFrequency / medianFrequency against welch_psd.json', () => {
     expect(medianFrequency([50, 150], [1, 3], { convention: 'bin' })).toBe(150);
   });
 });
+
+describe("WelchAccumulator({ nan: 'skip' })", () => {
+  it('leaves out segments holding a NaN and counts them; the rest average as without them', () => {
+    const x = Float64Array.from(fx.x);
+    x[100] = NaN; // inside segment 0 only (segments of 1024 starting every 512)
+    const r = welch(x, { ...opts, nan: 'skip' });
+    expect(r.segments).toBe(fx.welch_settings.n_segments - 1);
+    expect(r.skipped_segments).toBe(1);
+    const ref = welch(fx.x.slice(512), opts);
+    r.psd.forEach((v, k) => expect(v).toBeCloseTo(ref.psd[k], 14));
+    expect(welch(x, opts).psd.every(Number.isNaN)).toBe(true);
+  });
+});

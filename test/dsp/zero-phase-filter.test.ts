@@ -58,6 +58,21 @@ describe('ZeroPhaseFilter on a long signal', () => {
     expect(y.length).toBe(n);
     expect(maxAbsDiff(y, ref)).toBeLessThanOrEqual(1e-9 * maxAbs(x));
   });
+  it('the documented bound holds: with tolerance t the block error stays ≤ t·max|x| (t = 1e-4, 1e-7, 1e-10)', () => {
+    const fs = 1000, n = 200_000;
+    const rng = new SplitMix64(17);
+    const x = new Float64Array(n);
+    for (let i = 0; i < n; i++) x[i] = 100 + 20 * rng.normal() + 50 * Math.sin(i / 500);
+    for (const sos of [butter(4, 10, { fs }), butter(4, [20, 300], { btype: 'bandpass', fs }), mainsNotch(50, fs)]) {
+      const ref = sosfiltfilt(sos, x);
+      for (const t of [1e-4, 1e-7, 1e-10]) {
+        const zp = new ZeroPhaseFilter(sos, { tolerance: t, blockSize: 1 });
+        const y = streamed(zp, x, randomSplits(n, 3, 5000));
+        expect(n / zp.blockSize).toBeGreaterThan(3); // several blocks, so the bound is really exercised
+        expect(maxAbsDiff(y, ref)).toBeLessThanOrEqual(t * maxAbs(x));
+      }
+    }
+  });
   it('zeroPhaseOverlap grows with the slowest pole: notch (Q 30) needs more than the band-pass', () => {
     const bp = zeroPhaseOverlap(butter(4, [20, 450], { btype: 'bandpass', fs: 2000 }));
     const nt = zeroPhaseOverlap(mainsNotch(50, 2000));

@@ -1,0 +1,43 @@
+// The unit of parallel work of an analysis: one field recording streamed once through the filter
+// and envelope chain (and, later, the per-channel screening taps). Input and output are plain,
+// transferable data, so the same function runs inline (--jobs 1) or on a worker thread.
+import type { OpenOptions } from '../io/open-options.js';
+import { readEnvelopes, type ChannelEnvelopes, type EnvelopeSpec, type FilterSpec } from './read-envelopes.js';
+
+export interface RecordingJob {
+  file: string;
+  open?: OpenOptions;
+  signals: number[];
+  filter: FilterSpec;
+  envelope: EnvelopeSpec;
+  second?: EnvelopeSpec;
+}
+
+export interface RecordingJobResult {
+  channels: ChannelEnvelopes[];
+  start_s: number;
+  end_s: number;
+  discontinuities: number;
+}
+
+/**
+ * Process one field recording: every requested channel's envelope(s) in µV, clipping counts.
+ * @param onProgress seconds of the recording read so far
+ */
+export async function processRecording(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
+  const res = await readEnvelopes({
+    file: job.file, signals: job.signals, start_s: 0, end_s: null, filter: job.filter,
+    envelope: job.envelope, second: job.second, open: job.open, onProgress,
+  });
+  return { channels: res.channels, start_s: res.start_s, end_s: res.end_s, discontinuities: res.discontinuities };
+}
+
+/** The ArrayBuffers of a result, to transfer (not copy) them between threads. */
+export function transferablesOf(r: RecordingJobResult): ArrayBuffer[] {
+  const out: ArrayBuffer[] = [];
+  for (const c of r.channels) {
+    out.push(c.envelope.buffer as ArrayBuffer);
+    if (c.second) out.push(c.second.buffer as ArrayBuffer);
+  }
+  return out;
+}

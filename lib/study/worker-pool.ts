@@ -1,0 +1,75 @@
+// A fixed pool of worker threads running processRecording. Jobs are queued and handed to the first
+// free worker; results come back as transferred buffers. Errors keep their kind (a user error
+// stays an InputError, exit code 2). With size 0 nothing is started and jobs run inline.
+import { Worker } from 'node:worker_threads';
+import { InputError } from '../errors.js';
+import { processRecording, type RecordingJob, type RecordingJobResult } from './process-recording.js';
+
+interface Pending {
+  id: number;
+  job: RecordingJob;
+  resolve: (r: RecordingJobResult) => void;
+  reject: (e: Error) => void;
+  onProgress?: (done_s: number) => void;
+}
+
+/** Where the compiled worker lives (tests run the TypeScript sources; the worker needs dist/). */
+function workerUrl(): URL {
+  return import.meta.url.endsWith('.ts')
+    ? new URL('../../dist/study/recording-worker.js', import.meta.url)
+    : new URL('./recording-worker.js', import.meta.url);
+}
+
+export class RecordingPool {
+  private readonly workers: Worker[] = [];
+  private readonly idle: Worker[] = [];
+  private readonly queue: Pending[] = [];
+  private readonly running = new Map<Worker, Pending>();
+  private nextId = 1;
+
+  /** @param size number of worker threads; 0 = run every job inline on this thread */
+  constructor(readonly size: number) {
+    for (let i = 0; i < size; i++) {
+      const w = new Worker(workerUrl());
+      w.on('message', (m: { id: number; progress?: number; result?: RecordingJobResult; error?: { message: string; user: boolean; file?: string } }) => {
+        const p = this.running.get(w);
+        if (!p || p.id !== m.id) return;
+        if (m.progress !== undefined) { p.onProgress?.(m.progress); return; }
+        this.running.delete(w);
+        this.idle.push(w);
+        if (m.error) p.reject(m.error.user ? new InputError(m.error.message, { file: m.error.file }) : new Error(m.error.message));
+        else p.resolve(m.result!);
+        this.pump();
+      });
+      w.on('error', (e) => {
+        const p = this.running.get(w);
+        if (p) { this.running.delete(w); p.reject(e); }
+      });
+      this.workers.push(w);
+      this.idle.push(w);
+    }
+  }
+
+  /** Run one recording job (queued when every worker is busy). */
+  run(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
+    if (this.size === 0) return processRecording(job, onProgress);
+    return new Promise((resolve, reject) => {
+      this.queue.push({ id: this.nextId++, job, resolve, reject, onProgress });
+      this.pump();
+    });
+  }
+
+  private pump(): void {
+    while (this.idle.length > 0 && this.queue.length > 0) {
+      const w = this.idle.pop()!;
+      const p = this.queue.shift()!;
+      this.running.set(w, p);
+      w.postMessage({ id: p.id, job: p.job });
+    }
+  }
+
+  /** Stop every worker. */
+  async close(): Promise<void> {
+    await Promise.all(this.workers.map((w) => w.terminate()));
+  }
+}
