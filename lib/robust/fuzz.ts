@@ -146,7 +146,7 @@ function prepareCase(kind: FuzzKind, rng: SplitMix64, seeds: string, work: strin
     let job = seedBytes(seeds, 'tiny-job.yaml').toString('utf8');
     if (bdf) job = job.replaceAll('tiny.edf', 'tiny.bdf');
     writeFileSync(join(work, 'tiny-job.yaml'), job);
-    return analyzeCase(kind, join(work, 'tiny-job.yaml'), out, [bdf ? 'tiny.bdf' : 'tiny.edf', ...m.edits]);
+    return analyzeCase(kind, join(work, 'tiny-job.yaml'), out, [bdf ? 'tiny.bdf' : 'tiny.edf', ...m.edits], rng.int(6) === 0 ? 2 : 1);
   }
   if (kind === 'csv-inspect' || kind === 'csv-convert') {
     const seed = ['time-column.csv', 'decimal-comma.csv', 'no-time.tsv'][rng.int(3)];
@@ -182,13 +182,13 @@ function prepareCase(kind: FuzzKind, rng: SplitMix64, seeds: string, work: strin
     const json = rng.int(4) === 0;
     return { kind, args: ['check', job, ...(json ? ['--json'] : [])], command: checkCommand, argv: { job, json }, edits: ['tiny-job.yaml', ...m.edits], outputs: [] };
   }
-  return analyzeCase(kind, job, out, ['tiny-job.yaml', ...m.edits]);
+  return analyzeCase(kind, job, out, ['tiny-job.yaml', ...m.edits], rng.int(6) === 0 ? 2 : 1);
 }
 
-function analyzeCase(kind: FuzzKind, job: string, out: string, edits: string[]): Prepared {
+function analyzeCase(kind: FuzzKind, job: string, out: string, edits: string[], jobs: number): Prepared {
   return {
-    kind, args: ['analyze', job, '--no-report', '-o', out], command: analyzeCommand,
-    argv: { job, out, force: false, report: false, svg: false }, edits,
+    kind, args: ['analyze', job, '--no-report', '-o', out, '--jobs', String(jobs)], command: analyzeCommand,
+    argv: { job, out, force: false, report: false, svg: false, jobs }, edits,
     outputs: [join(out, 'results.json'), join(out, 'segments.csv')],
   };
 }
