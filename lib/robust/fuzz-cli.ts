@@ -34,4 +34,8 @@ const s = await runFuzz({
 rmSync(dir, { recursive: true, force: true });
 process.stdout.write(`fuzz seed ${values.seed}: ${s.cases} cases in ${((performance.now() - t0) / 1000).toFixed(1)} s — exit 0: ${s.exit0}, exit 2: ${s.exit2}, failures: ${s.failures.length}; slowest case ${Math.round(s.slowestMs)} ms\n`);
 for (const [k, v] of Object.entries(s.byKind)) process.stdout.write(`  ${k.padEnd(15)} ${String(v.cases).padStart(6)} cases  exit 0: ${v.exit0}  exit 2: ${v.exit2}\n`);
+if (s.unnamed.length > 0) {
+  process.stdout.write(`exit-2 lines naming no input file: ${s.unnamed.length} (first few below)\n`);
+  for (const r of s.unnamed.slice(0, values.verbose ? s.unnamed.length : 8)) process.stdout.write(`  ${describeCase(r)}\n`);
+}
 process.exitCode = s.failures.length > 0 ? 1 : 0;

@@ -63,6 +63,8 @@ export interface CaseResult {
   stderr: string;
   /** Why the case counts as a failure, or null. */
   failure: string | null;
+  /** Exit 2 only: whether the line names one of the case's input files (base name). */
+  named?: boolean;
 }
 
 export interface FuzzSummary {
@@ -70,6 +72,8 @@ export interface FuzzSummary {
   exit0: number;
   exit2: number;
   failures: CaseResult[];
+  /** Exit-2 cases whose line names none of the case's input files (worth a look, not failures). */
+  unnamed: CaseResult[];
   byKind: Record<string, { cases: number; exit0: number; exit2: number }>;
   slowestMs: number;
 }
@@ -96,6 +100,8 @@ interface Prepared {
   argv: Record<string, unknown>;
   edits: string[];
   outputs: string[];
+  /** Base names of the case's input files (an exit-2 line should name one of them). */
+  inputs: string[];
 }
 
 /**
@@ -116,7 +122,7 @@ export async function runHandler(command: AnyCommand, argv: Record<string, unkno
 }
 
 /** Lay out case `i`'s inputs in `work` (seeds in `seeds`) and return the command line. */
-function prepareCase(kind: FuzzKind, rng: SplitMix64, seeds: string, work: string): Prepared {
+function prepareCase(kind: FuzzKind, rng: SplitMix64, seeds: string, work: string): Omit<Prepared, 'inputs'> & { inputs?: string[] } {
   const put = (name: string, m: Mutant) => { writeFileSync(join(work, name), m.bytes); return join(work, name); };
   const copy = (name: string, as = name) => { writeFileSync(join(work, as), seedBytes(seeds, name)); return join(work, as); };
   const out = join(work, 'out');
@@ -185,7 +191,7 @@ function prepareCase(kind: FuzzKind, rng: SplitMix64, seeds: string, work: strin
   return analyzeCase(kind, job, out, ['tiny-job.yaml', ...m.edits], rng.int(6) === 0 ? 2 : 1);
 }
 
-function analyzeCase(kind: FuzzKind, job: string, out: string, edits: string[], jobs: number): Prepared {
+function analyzeCase(kind: FuzzKind, job: string, out: string, edits: string[], jobs: number): Omit<Prepared, 'inputs'> {
   return {
     kind, args: ['analyze', job, '--no-report', '-o', out, '--jobs', String(jobs)], command: analyzeCommand,
     argv: { job, out, force: false, report: false, svg: false, jobs }, edits,
@@ -204,7 +210,7 @@ function strayTemps(dir: string): string[] {
  * reports finite positive rates and durations and finite physical ranges (a non-finite value there
  * means a damaged number was accepted).
  */
-function postconditionFailure(p: Prepared, stdout: string): string | null {
+function postconditionFailure(p: Omit<Prepared, 'inputs'>, stdout: string): string | null {
   const missing = p.outputs.filter((o) => !existsSync(o));
   if (missing.length > 0) return `exit 0 but no output ${missing.join(', ')}`;
   if (p.kind.endsWith('analyze')) {
@@ -231,6 +237,7 @@ export async function runCase(seed: number, i: number, seeds: string, work: stri
   const rng = caseRng(seed, i);
   const kind = drawKind(rng, kinds);
   const p = prepareCase(kind, rng, seeds, work);
+  p.inputs = readdirSync(work).filter((f) => f !== 'out');
   const io = bufferIO();
   const t0 = performance.now();
   let timer: NodeJS.Timeout | undefined;
@@ -261,7 +268,9 @@ export async function runCase(seed: number, i: number, seeds: string, work: stri
     const temps = [...strayTemps(work), ...strayTemps(join(work, 'out'))];
     if (temps.length > 0) failure = `temporary files left: ${temps.join(', ')}`;
   }
-  return { seed, case: i, kind, args: p.args, via, edits: p.edits, code, ms, stderr: io.stderr, failure };
+  // an option error names the option instead of a file
+  const named = code === 2 && lines.length === 1 ? lines[0].startsWith('shiftload: --') || p.inputs.some((f) => lines[0].includes(f)) : undefined;
+  return { seed, case: i, kind, args: p.args, via, edits: p.edits, code, ms, stderr: io.stderr, failure, ...(named !== undefined ? { named } : {}) };
 }
 
 /**
@@ -272,7 +281,7 @@ export async function runFuzz(o: FuzzOptions): Promise<FuzzSummary> {
   const seeds = writeSeedFiles(join(o.dir, 'seeds'));
   const work = join(o.dir, 'work');
   const kinds = o.kinds ?? FUZZ_KINDS;
-  const summary: FuzzSummary = { cases: 0, exit0: 0, exit2: 0, failures: [], byKind: {}, slowestMs: 0 };
+  const summary: FuzzSummary = { cases: 0, exit0: 0, exit2: 0, failures: [], unnamed: [], byKind: {}, slowestMs: 0 };
   const first = o.first ?? 0;
   for (let i = first; i < first + o.cases; i++) {
     const via = i % (o.mainEvery ?? 1) === 0 ? 'main' : 'handler';
@@ -284,6 +293,7 @@ export async function runFuzz(o: FuzzOptions): Promise<FuzzSummary> {
     if (r.code === 2) { summary.exit2++; k.exit2++; }
     summary.slowestMs = Math.max(summary.slowestMs, r.ms);
     if (r.failure !== null) summary.failures.push(r);
+    else if (r.named === false) summary.unnamed.push(r);
     o.onCase?.(r);
   }
   rmSync(work, { recursive: true, force: true });

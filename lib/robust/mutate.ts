@@ -173,7 +173,7 @@ function mutateText(input: Buffer, rng: SplitMix64, yamlValues: readonly string[
   const n = 1 + rng.int(3);
   for (let k = 0; k < n; k++) {
     const lines = s.split('\n');
-    const kind = rng.int(yamlValues.length > 0 ? 12 : 9);
+    const kind = rng.int(yamlValues.length > 0 ? 13 : 9);
     const li = rng.int(lines.length);
     if (kind === 0) { lines.splice(li, 1); edits.push(`delete line ${li + 1}`); }
     else if (kind === 1) { lines.splice(li, 0, lines[li]); edits.push(`duplicate line ${li + 1}`); }
@@ -212,6 +212,14 @@ function mutateText(input: Buffer, rng: SplitMix64, yamlValues: readonly string[
       if (!m) continue;
       const v = pick(rng, yamlValues);
       lines[li] = m[1] + v + lines[li].slice(m[0].length); edits.push(`line ${li + 1} value->'${v}'`);
+    } else if (kind === 12) {
+      // YAML: an alias bomb (width^depth values after expansion) as a new key or a value
+      const width = 2 + rng.int(11);
+      const depth = 2 + rng.int(8);
+      const bomb = [`bomb0: &b0 [${Array(width).fill('x').join(', ')}]`];
+      for (let d = 1; d < depth; d++) bomb.push(`bomb${d}: &b${d} [${Array(width).fill(`*b${d - 1}`).join(', ')}]`);
+      lines.splice(rng.int(2) === 0 ? 0 : lines.length, 0, ...bomb);
+      edits.push(`alias bomb ${width}^${depth}`);
     } else {
       // YAML: rename a key, or shift indentation
       const m = /^(\s*(?:-\s+)?)(\w+)(:.*)$/.exec(lines[li]);
