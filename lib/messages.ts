@@ -272,3 +272,14 @@ export const reportMsg = {
   wrote: (file: string, pages: number, ms: number) => `wrote ${file} (${pages} pages, ${ms} ms)\n`,
   wroteSvg: (dir: string, n: number) => `wrote ${n} SVG charts to ${dir}\n`,
 };
+
+// ---------------------------------------------------------------------------------------------
+// robust: output paths (lib/io/write-atomic.ts)
+// ---------------------------------------------------------------------------------------------
+
+export const outputMsg = {
+  notRegular: (file: string) => `${file}: output path exists and is not a regular file (a device, pipe or socket); choose a file path`,
+  isFolder: (file: string) => `${file}: output path is a folder; give a file name`,
+  noFolder: (file: string) => `${file}: the folder for this output does not exist`,
+  cannotWrite: (file: string, reason: string) => `${file}: cannot write (${reason})`,
+};

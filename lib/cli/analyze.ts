@@ -1,9 +1,11 @@
 // `shiftload analyze JOB [--out DIR]`: the whole study job — job file in, results.json,
 // segments.csv and report.pdf out.
 import { availableParallelism } from 'node:os';
+import { existsSync, rmSync } from 'node:fs';
 import { basename, dirname, extname, join, relative } from 'node:path';
 import type { CommandModule } from 'yargs';
 import { UsageError } from '../errors.js';
+import { writeAtomic } from '../io/write-atomic.js';
 import { loadJob } from '../job/load-job.js';
 import { msg } from '../messages.js';
 import type { Study } from '../job/study-types.js';
@@ -28,6 +30,8 @@ export interface AnalyzeOutcome {
   results: StudyResults;
   outDir: string;
   files: string[];
+  /** Outputs of an earlier run removed because they no longer match (report.pdf with --no-report). */
+  removed?: string[];
 }
 
 /**
@@ -66,15 +70,26 @@ export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: C
     bar.stop();
   }
   results.comparisons = compareConditions(results.rows, {});
+  // The report is rendered before anything is written, so a failing renderer leaves every previous
+  // output as it was; then each file is renamed into place.
+  let pdfBytes: Uint8Array | null = null;
+  if (options.report !== false) {
+    const { renderReport } = await import('../report/render-report.js');
+    pdfBytes = await renderReport(results, { svgDir: options.svg ? join(outDir, 'charts') : undefined });
+  }
   const written = writeStudyOutputs(outDir, results);
   const files = [written.results, written.rows];
-  if (options.report !== false) {
-    const { writeReport } = await import('../report/render-report.js');
-    const pdf = join(outDir, OUTPUT_NAMES.report);
-    await writeReport(results, pdf, { svgDir: options.svg ? join(outDir, 'charts') : undefined });
+  const pdf = join(outDir, OUTPUT_NAMES.report);
+  const removed: string[] = [];
+  if (pdfBytes !== null) {
+    writeAtomic(pdf, pdfBytes);
     files.push(pdf);
+  } else if (existsSync(pdf)) {
+    // --no-report into a reused folder: a report of an earlier run must not sit beside new results
+    rmSync(pdf);
+    removed.push(pdf);
   }
-  return { study, results, outDir, files };
+  return { study, results, outDir, files, removed };
 }
 
 /** A short plain summary printed after the analysis. */
@@ -87,6 +102,7 @@ export function summaryText(outcome: AnalyzeOutcome): string {
     `${results.title}: ${workers} worker(s), ${results.rows.length} rows (worker × condition × muscle × segment)`,
     `findings: ${errors} error(s), ${warnings} warning(s), ${results.findings.length - errors - warnings} note(s)`,
     ...outcome.files.map((f) => `wrote ${relative(process.cwd(), f) || f}`),
+    ...(outcome.removed ?? []).map((f) => `removed ${relative(process.cwd(), f) || f} (from an earlier run; --no-report)`),
   ];
   return lines.join('\n') + '\n';
 }

@@ -236,7 +236,8 @@ function parseIntField(file: string, text: string, field: string, offset: number
 
 function parseNumField(file: string, text: string, field: string, offset: number): number {
   const t = text.trim();
-  if (!NUM_RE.test(t)) throw new InputError(ioMsg.headerNumber(file, field, offset, text, 'a number'), { file, where: `byte ${offset}` });
+  // '1e999' matches the pattern but overflows to Infinity: refused like any other non-number
+  if (!NUM_RE.test(t) || !Number.isFinite(Number(t))) throw new InputError(ioMsg.headerNumber(file, field, offset, text, 'a number'), { file, where: `byte ${offset}` });
   return Number(t);
 }
 

@@ -69,6 +69,8 @@ describe('catalogue: EDF/BDF headers and records (inspect)', () => {
     ['no signals', 'signals', '0', /number of signals \(byte 252\)/],
     ['physical maximum Infinity', 'physical max[0]', 'Infinity', /physical maximum of signal 0 \(byte \d+\).*'Infinity'/],
     ['physical minimum NaN', 'physical min[1]', 'NaN', /physical minimum of signal 1 \(byte \d+\).*'NaN'/],
+    ['physical minimum that overflows (1e999)', 'physical min[1]', '1e999', /physical minimum of signal 1 \(byte \d+\).*'1e999'/],
+    ['record duration that overflows (1e999)', 'duration', '1e999', /data record duration \(byte 244\)/],
     ['digital minimum above the maximum', 'digital min[0]', '32767', /digital minimum .* below digital maximum|digital/],
     ['digital limit outside 16 bits', 'digital max[0]', '99999', /digital limit 99999 \(byte \d+\) is outside/],
     ['impossible start date', 'startdate', '31.02.24', /start date \(byte 168\)/],
