@@ -274,8 +274,12 @@ export const reportMsg = {
 };
 
 // ---------------------------------------------------------------------------------------------
-// robust: output paths (lib/io/write-atomic.ts)
+// robust: input limits found by fuzzing; output paths (lib/io/write-atomic.ts)
 // ---------------------------------------------------------------------------------------------
+
+export const inputMsg = {
+  csvTimeRate: (file: string, step: number) => `${file}: time column: a step of ${step} s gives no usable sampling rate or duration`,
+};
 
 export const outputMsg = {
   notRegular: (file: string) => `${file}: output path exists and is not a regular file (a device, pipe or socket); choose a file path`,

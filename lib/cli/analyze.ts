@@ -5,7 +5,6 @@ import { existsSync, rmSync } from 'node:fs';
 import { basename, dirname, extname, join, relative } from 'node:path';
 import type { CommandModule } from 'yargs';
 import { UsageError } from '../errors.js';
-import { writeAtomic } from '../io/write-atomic.js';
 import { loadJob } from '../job/load-job.js';
 import { msg } from '../messages.js';
 import type { Study } from '../job/study-types.js';
@@ -71,20 +70,17 @@ export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: C
   }
   results.comparisons = compareConditions(results.rows, {});
   // The report is rendered before anything is written, so a failing renderer leaves every previous
-  // output as it was; then each file is renamed into place.
+  // output as it was; then all outputs are written under temporary names and renamed together.
   let pdfBytes: Uint8Array | null = null;
   if (options.report !== false) {
     const { renderReport } = await import('../report/render-report.js');
     pdfBytes = await renderReport(results, { svgDir: options.svg ? join(outDir, 'charts') : undefined });
   }
-  const written = writeStudyOutputs(outDir, results);
-  const files = [written.results, written.rows];
+  const written = writeStudyOutputs(outDir, results, pdfBytes ?? undefined);
+  const files = [written.results, written.rows, ...(written.report !== undefined ? [written.report] : [])];
   const pdf = join(outDir, OUTPUT_NAMES.report);
   const removed: string[] = [];
-  if (pdfBytes !== null) {
-    writeAtomic(pdf, pdfBytes);
-    files.push(pdf);
-  } else if (existsSync(pdf)) {
+  if (pdfBytes === null && existsSync(pdf)) {
     // --no-report into a reused folder: a report of an earlier run must not sit beside new results
     rmSync(pdf);
     removed.push(pdf);

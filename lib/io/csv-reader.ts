@@ -8,7 +8,7 @@
 import type { FileHandle } from 'node:fs/promises';
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
 import { InputError, UsageError } from '../errors.js';
-import { ioMsg, msg } from '../messages.js';
+import { inputMsg, ioMsg, msg } from '../messages.js';
 import { lineBatches } from './line-batches.js';
 import { IO_DEFAULTS, type OpenOptions } from './open-options.js';
 import { parseDecimal } from './parse-decimal.js';
@@ -98,6 +98,8 @@ export async function openCsv(file: string, fh: FileHandle, _size: number, optio
         steps.forEach((d, i) => checkStep(file, stepLines[i], d, med));
       }
       rate = snapRate(1 / med, (rows - 1) / (tPrev - tFirst));
+      // steps like 1e308 (or 5e-324) overflow the rate or the duration
+      if (!(Number.isFinite(rate) && rate > 0 && Number.isFinite(rows / rate))) throw new InputError(inputMsg.csvTimeRate(file, med), { file, where: 'time column' });
     } else if (options.rate_hz !== undefined) {
       rate = options.rate_hz;
     } else {

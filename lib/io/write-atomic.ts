@@ -65,6 +65,44 @@ export function writeAtomic(target: string, data: string | Uint8Array): void {
   }
 }
 
+/**
+ * Write several files as one step as far as a file system allows: every temporary file is written
+ * and synced first, then all are renamed into place one right after the other. A failure before the
+ * renames leaves every target untouched and removes the temporary files; a kill can only land
+ * between two renames (microseconds), not while a file is being written.
+ * @example writeAtomicSet([{ target: 'out/results.json', data: json }, { target: 'out/segments.csv', data: csv }])
+ */
+export function writeAtomicSet(files: readonly { target: string; data: string | Uint8Array }[]): void {
+  for (const f of files) checkOutputPath(f.target);
+  const written: string[] = [];
+  try {
+    for (const f of files) {
+      const tmp = tempPathFor(f.target);
+      const fd = openSync(tmp, 'w');
+      written.push(tmp);
+      try {
+        const bytes = typeof f.data === 'string' ? Buffer.from(f.data, 'utf8') : f.data;
+        let off = 0;
+        while (off < bytes.length) off += writeSync(fd, bytes, off, bytes.length - off);
+        fsyncSync(fd);
+      } finally {
+        closeSync(fd);
+      }
+    }
+  } catch (e) {
+    for (const t of written) { try { unlinkSync(t); } catch { /* already gone */ } }
+    throw asUserError(e, files[written.length - 1]?.target ?? files[0].target);
+  }
+  files.forEach((f, i) => {
+    try {
+      renameSync(written[i], f.target);
+    } catch (e) {
+      for (const t of written.slice(i)) { try { unlinkSync(t); } catch { /* already gone */ } }
+      throw asUserError(e, f.target);
+    }
+  });
+}
+
 /** True when a process with this id is running (signal 0 probes without sending anything). */
 function processAlive(pid: number): boolean {
   if (pid === process.pid) return true;

@@ -5,7 +5,7 @@
 import { existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { InputError } from '../errors.js';
-import { removeStaleTemps, writeAtomic } from '../io/write-atomic.js';
+import { removeStaleTemps, writeAtomicSet } from '../io/write-atomic.js';
 import { msg } from '../messages.js';
 import type { StudyResults } from './results.js';
 import { rowsToCsv } from './rows-csv.js';
@@ -43,11 +43,19 @@ export function prepareOutputFolder(dir: string, options: OutputFolderOptions): 
   }
 }
 
-/** Write results.json and segments.csv into `dir`; returns the paths written. */
-export function writeStudyOutputs(dir: string, results: StudyResults): { results: string; rows: string } {
+/**
+ * Write results.json and segments.csv (and report.pdf when `reportPdf` is given) into `dir` as one
+ * set: all are written and synced under temporary names, then renamed into place together
+ * (writeAtomicSet). Returns the paths written.
+ */
+export function writeStudyOutputs(dir: string, results: StudyResults, reportPdf?: Uint8Array): { results: string; rows: string; report?: string } {
   const r = join(dir, OUTPUT_NAMES.results);
   const c = join(dir, OUTPUT_NAMES.rows);
-  writeAtomic(r, stableJson(results));
-  writeAtomic(c, rowsToCsv(results.rows));
-  return { results: r, rows: c };
+  const p = join(dir, OUTPUT_NAMES.report);
+  writeAtomicSet([
+    { target: r, data: stableJson(results) },
+    { target: c, data: rowsToCsv(results.rows) },
+    ...(reportPdf !== undefined ? [{ target: p, data: reportPdf }] : []),
+  ]);
+  return { results: r, rows: c, ...(reportPdf !== undefined ? { report: p } : {}) };
 }

@@ -136,6 +136,12 @@ describe('catalogue: CSV/TSV recordings (inspect)', () => {
     const p = put('tinf.csv', 'time_s,A\n0,1\n1e999,2\n');
     await refused(['inspect', p], p, /tinf\.csv:3 column time/);
   });
+  it('time steps that overflow the rate or the duration (1e308, 5e-324) exit 2 naming the time column', async () => {
+    for (const step of ['1e308', '5e-324']) {
+      const p = put(`step${step}.csv`, `time_s,A\n0,1\n${step},2\n`);
+      await refused(['inspect', p], p, /time column: a step of .* no usable sampling rate/);
+    }
+  });
   it("an 'Inf' cell exits 2 naming line and column", async () => {
     const p = put('inf2.csv', 'time_s,A\n0,1\n0.001,Inf\n');
     await refused(['inspect', p], p, /inf2\.csv:3 column A: expected a number, got 'Inf'/);
