@@ -278,6 +278,8 @@ export const reportMsg = {
 // ---------------------------------------------------------------------------------------------
 
 export const inputMsg = {
+  csvLineTooLong: (file: string, line: number, limit: number) =>
+    `${file}:${line}: line longer than ${limit} bytes; not a CSV/TSV text export (zero-filled or binary file?)`,
   csvTimeRate: (file: string, step: number) => `${file}: time column: a step of ${step} s gives no usable sampling rate or duration`,
 };
 

@@ -55,7 +55,7 @@ export async function openCsv(file: string, fh: FileHandle, _size: number, optio
   try {
     if (options.rate_hz !== undefined && !(options.rate_hz > 0)) throw new UsageError(msg.badOption('rate', 'a rate in Hz > 0', String(options.rate_hz)));
     let lastLine = 0;
-    for await (const b of lineBatches(fh, blockBytes)) {
+    for await (const b of lineBatches(fh, blockBytes, (l, limit) => { throw new InputError(inputMsg.csvLineTooLong(file, l, limit), { file, where: `line ${l}` }); })) {
       for (let k = 0; k < b.count; k++) {
         const s = b.start[k];
         const e = b.end[k];
@@ -278,7 +278,7 @@ async function* readRows(file: string, fh: FileHandle, L: CsvLayout, info: Recor
   let fill = 0;
   let chunkRow = s0;
   let done = false;
-  for await (const b of lineBatches(fh, blockBytes)) {
+  for await (const b of lineBatches(fh, blockBytes, (l, limit) => { throw new InputError(inputMsg.csvLineTooLong(file, l, limit), { file, where: `line ${l}` }); })) {
     for (let k = 0; k < b.count; k++) {
       const s = b.start[k];
       const e = b.end[k];

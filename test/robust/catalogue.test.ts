@@ -142,6 +142,10 @@ describe('catalogue: CSV/TSV recordings (inspect)', () => {
       await refused(['inspect', p], p, /time column: a step of .* no usable sampling rate/);
     }
   });
+  it('a zero-filled .csv (a crashed logger) exits 2 at the line-length limit, without reading it into memory', async () => {
+    const p = put('zeros.csv', Buffer.alloc((1 << 24) + 1024));
+    await refused(['inspect', p], p, /zeros\.csv:1: line longer than 16777216 bytes/);
+  });
   it("an 'Inf' cell exits 2 naming line and column", async () => {
     const p = put('inf2.csv', 'time_s,A\n0,1\n0.001,Inf\n');
     await refused(['inspect', p], p, /inf2\.csv:3 column A: expected a number, got 'Inf'/);
