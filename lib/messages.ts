@@ -12,6 +12,7 @@ export const msg = {
   emptyFile: (file: string) => `${file}: file is empty`,
   cannotRead: (file: string, reason: string) => `${file}: cannot read (${reason})`,
   outputIsInput: (file: string) => `${file}: output path is also an input; refusing to overwrite an input`,
+  notResults: (file: string, what: string) => `${file}: not a shiftload results file: ${what}`,
   outputNotFolder: (dir: string) => `${dir}: output path exists and is not a folder`,
   outputExists: (dir: string) => `${dir}: output folder exists and is not empty; use --force to reuse it`,
   badOption: (option: string, expected: string, got: string) => `--${option}: expected ${expected}, got ${got}`,
@@ -79,6 +80,7 @@ export const ioMsg = {
     `EDF writer: a data record would take ${bytes} bytes (limit ${limit}); the sampling rate is implausibly high for this writer`,
   writerPhysRange: (label: string, lo: number, hi: number) => `EDF writer: signal '${label}': physical minimum ${lo} must be below maximum ${hi}`,
   // convert
+  convertProcessingGap: (file: string) => `${file}: the recording is discontinuous (EDF+D); filtering or an envelope needs continuous data — convert each continuous span with --start/--end`,
   convertMixedRates: (rates: string) =>
     `convert --format csv: the selected signals have different sampling rates (${rates} Hz); select signals of one rate with --signals`,
   convertUnknownSignal: (name: string, labels: string) => `--signals: no signal named '${name}' (signals: ${labels})`,
@@ -271,6 +273,30 @@ export const reportMsg = {
   noRows: (file: string) => `${file}: rows: expected at least one result row, got none`,
   wrote: (file: string, pages: number, ms: number) => `wrote ${file} (${pages} pages, ${ms} ms)\n`,
   wroteSvg: (dir: string, n: number) => `wrote ${n} SVG charts to ${dir}\n`,
+};
+
+// ---------------------------------------------------------------------------------------------
+// fatigue: spectral epochs, trends and JASA
+// ---------------------------------------------------------------------------------------------
+
+export const fatigueMsg = {
+  epochTooShort: (epochS: number, fs: number) => `spectral epoch must hold at least 16 samples (epoch_s × fs; fs=${fs} Hz), got epoch_s=${epochS}`,
+  band: (lo: number, hi: number, fs: number) => `spectral band must satisfy 0 ≤ low < high ≤ fs/2 (fs=${fs} Hz → ${fs / 2} Hz), got [${lo}, ${hi}] Hz`,
+};
+
+/** Texts written into the fatigue results (lib/exposure/fatigue-blocks.ts). */
+export const fatigueText = {
+  activeRule: (thresholdPct: number | null, unit: string, noiseFactor: number | null, noiseUv: number | null) => {
+    const parts: string[] = [];
+    if (thresholdPct !== null) parts.push(`noise-corrected RMS ≥ ${thresholdPct} ${unit}`);
+    if (noiseFactor !== null && noiseUv !== null) parts.push(`RMS ≥ ${noiseFactor} × the noise RMS (${(noiseFactor * noiseUv).toPrecision(3)} µV)`);
+    return parts.length === 0 ? 'every epoch with a non-zero RMS (no reference and no noise level to judge rest)' : `epochs with ${parts.join(' and ')}`;
+  },
+  method: (epochS: number, nfft: string, band: [number, number], blockS: number) =>
+    `EMG cut into ${epochS}-s epochs; per epoch the RMS and, from one Hann-windowed FFT (${nfft}), the mean and median power frequency over ${band[0]}–${band[1]} Hz. `
+    + `Over each ${blockS / 60}-min block and each task segment, amplitude and MNF are regressed on time (least squares, 95 % t intervals); `
+    + 'a trend counts only when its interval excludes zero. JASA categories after Luttmann et al. 2000. '
+    + 'The categories describe the EMG of the muscle, not an individual\'s fatigue state, injury risk or a diagnosis.',
 };
 
 // ---------------------------------------------------------------------------------------------

@@ -9,6 +9,7 @@ import { loadJob } from '../job/load-job.js';
 import { msg } from '../messages.js';
 import type { Study } from '../job/study-types.js';
 import { compareConditions } from '../study/compare-conditions.js';
+import { parseDetect, planComparisons, type DetectTargets } from '../study/plan-comparisons.js';
 import type { StudyResults } from '../study/results.js';
 import { runStudy } from '../study/run-study.js';
 import { OUTPUT_NAMES, prepareOutputFolder, writeStudyOutputs } from '../study/write-study-outputs.js';
@@ -22,6 +23,8 @@ export interface AnalyzeOptions {
   svg?: boolean;
   /** Worker threads (≥ 2) or inline (1). @default defaultJobs() */
   jobs?: number;
+  /** Differences to plan for (--detect), per measure key. */
+  detect?: DetectTargets;
 }
 
 export interface AnalyzeOutcome {
@@ -68,7 +71,7 @@ export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: C
   } finally {
     bar.stop();
   }
-  results.comparisons = compareConditions(results.rows, {});
+  results.comparisons = planComparisons(compareConditions(results.rows, {}), options.detect);
   // The report is rendered before anything is written, so a failing renderer leaves every previous
   // output as it was; then all outputs are written under temporary names and renamed together.
   let pdfBytes: Uint8Array | null = null;
@@ -103,7 +106,7 @@ export function summaryText(outcome: AnalyzeOutcome): string {
   return lines.join('\n') + '\n';
 }
 
-type AnalyzeArgs = WithIO & { job: string; out?: string; force: boolean; report: boolean; svg: boolean; jobs: number };
+type AnalyzeArgs = WithIO & { job: string; out?: string; force: boolean; report: boolean; svg: boolean; jobs: number; detect?: string[] };
 
 export const analyzeCommand: CommandModule<object, AnalyzeArgs> = {
   command: 'analyze <job>',
@@ -117,10 +120,12 @@ export const analyzeCommand: CommandModule<object, AnalyzeArgs> = {
     .option('jobs', { alias: 'j', type: 'number', default: defaultJobs(), defaultDescription: 'cores, at most 4', describe: 'worker threads (recordings and channel groups processed at once); results are identical for any value' })
     .example('$0 analyze study/job.yaml', 'analyze and write study/job-results/{results.json,segments.csv,report.pdf}')
     .example('$0 analyze job.yaml -o out --force --no-report', 'results only, into an existing folder')
+    .option('detect', { type: 'string', array: true, describe: 'plan for a difference between conditions: 2 (median load), p90=5, gaps_per_min=1; adds the workers needed' })
+    .example('$0 analyze job.yaml --detect 2', 'also say how many workers would detect a 2-unit change in median load')
     .example('$0 analyze job.yaml --jobs 2', 'use two cores for a study of many recordings') as never,
   handler: async (argv) => {
     if (!(Number.isInteger(argv.jobs) && argv.jobs >= 1 && argv.jobs <= 64)) throw new UsageError(msg.badOption('jobs', 'a whole number from 1 to 64', String(argv.jobs)));
-    const outcome = await analyzeJob(argv.job, { out: argv.out, force: argv.force, report: argv.report, svg: argv.svg, jobs: argv.jobs }, argv.io);
+    const outcome = await analyzeJob(argv.job, { out: argv.out, force: argv.force, report: argv.report, svg: argv.svg, jobs: argv.jobs, detect: parseDetect(argv.detect ?? []) }, argv.io);
     argv.io.out(summaryText(outcome));
   },
 };

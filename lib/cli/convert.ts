@@ -12,6 +12,7 @@ import { chooseDuration, EdfWriter } from '../io/edf-writer.js';
 import { openRecording } from '../io/open-recording.js';
 import type { Annotation, RecordingInfo, SignalInfo } from '../io/recording.js';
 import { AtomicFile } from '../io/write-atomic.js';
+import { processingStage } from './convert-processing.js';
 
 /**
  * A processing stage between reader and writer. `transform` receives the selected signals' physical
@@ -97,9 +98,13 @@ export async function convertRecording(input: string, o: ConvertOptions): Promis
     } else {
       sink = new EdfSink(out, info, selInfo, rates, stage, start, end - start, annotations);
     }
+    let first = true;
     for await (const c of rec.read({ signals: sel, start_s: start, end_s: end })) {
+      // A processing stage holds samples back, so its output continues the row count.
+      if (stage && c.gap_before && !first) throw new UsageError(ioMsg.convertProcessingGap(input));
       const data = stage ? stage.transform(c.data) : c.data;
-      sink.write(data, c.start_s - start);
+      sink.write(data, stage ? (first ? 0 : NaN) : c.start_s - start);
+      first = false;
     }
     if (stage?.flush) sink.write(stage.flush(), NaN);
     sink.close();
@@ -235,6 +240,14 @@ function addSeconds(start: string, s: number): string {
 
 interface ConvertArgs extends WithIO {
   file: string; format: 'csv' | 'edf'; out?: string; signals?: string; start?: number; end?: number; rate?: number; unit?: string;
+  band?: string; order: number; notch?: number; envelope?: number; 'envelope-rate': number;
+}
+
+/** `--band LOW,HIGH` → [low, high]. */
+function parseBand(v: string): [number, number] {
+  const p = v.split(',').map((x) => Number(x.trim()));
+  if (p.length !== 2 || !p.every(Number.isFinite) || !(p[0]! < p[1]!)) throw new UsageError(msg.badOption('band', 'LOW,HIGH in Hz with LOW < HIGH, e.g. 30,400', `'${v}'`));
+  return [p[0]!, p[1]!];
 }
 
 export const convertCommand: CommandModule<object, ConvertArgs> = {
@@ -249,6 +262,13 @@ export const convertCommand: CommandModule<object, ConvertArgs> = {
     .option('end', { type: 'number', describe: 'span end, s (default: end of the recording)' })
     .option('rate', { type: 'number', describe: 'CSV/TSV input without a time column: sampling rate in Hz' })
     .option('unit', { type: 'string', describe: 'CSV/TSV input: unit of columns whose header gives none as "name [unit]" (default uV)' })
+    .option('band', { type: 'string', describe: 'band-pass LOW,HIGH in Hz (Butterworth, zero phase, as in analyze)' })
+    .option('order', { type: 'number', default: 4, describe: 'Butterworth order of --band' })
+    .option('notch', { type: 'number', choices: [50, 60], describe: 'mains notch in Hz (with its 2nd and 3rd multiple), needs --band' })
+    .option('envelope', { type: 'number', describe: 'write the moving-RMS envelope with this window, s, instead of the signal' })
+    .option('envelope-rate', { type: 'number', default: 20, describe: 'envelope values per second (with --envelope)' })
+    .example('$0 convert shift.edf --format edf --band 30,400 --notch 50 -o shift-filtered.edf', 'the signals as the analysis filters them')
+    .example('$0 convert shift.edf --format csv --band 30,400 --envelope 0.1 --envelope-rate 20', 'the RMS envelope (µV) as CSV')
     .example('$0 convert logger_export.csv --format edf', 'make logger_export.edf (EDF+) beside the CSV')
     .example('$0 convert shift.edf --format csv --signals "EMG R trapezius,EMG L trapezius" --start 600 --end 900', 'five minutes of two signals as CSV')
     .example('$0 convert shift.bdf --format edf -o shift16.edf', 'a 16-bit EDF+ copy of a BDF+ file') as never,
@@ -264,6 +284,12 @@ export const convertCommand: CommandModule<object, ConvertArgs> = {
       ...(argv.end !== undefined ? { end_s: argv.end } : {}),
       ...(argv.rate !== undefined ? { rate_hz: argv.rate } : {}),
       ...(argv.unit !== undefined ? { unit: argv.unit } : {}),
+      ...(argv.band !== undefined || argv.envelope !== undefined ? {
+        stage: processingStage({
+          band_hz: argv.band !== undefined ? parseBand(argv.band) : null, order: argv.order,
+          notch_hz: (argv.notch as 50 | 60 | undefined) ?? null, envelope_s: argv.envelope ?? null, rate_hz: argv['envelope-rate'],
+        }),
+      } : {}),
     });
     argv.io.out(`wrote ${r.out} (${r.format.toUpperCase()}, ${r.signals.length} signal${r.signals.length === 1 ? '' : 's'}, ${r.duration_s} s${r.format === 'edf' ? `, ${r.annotations} annotations` : ''})\n`);
   },

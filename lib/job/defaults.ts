@@ -1,5 +1,6 @@
 // Every analysis setting of a job file, its one default, its unit and its meaning. The schema
 // (job-schema.ts), the template, the loader and the report's methods section all read from here.
+import { FATIGUE_DEFAULTS, type FatigueSettings } from '../exposure/fatigue-settings.js';
 
 /** Normalization method: what 100 % of the normalized envelope means. */
 export type NormalizeMethod = 'mve' | 'rve' | 'task-peak' | 'none';
@@ -131,6 +132,11 @@ export interface Settings {
    * @default 10
    */
   trace_step_s: number;
+  /**
+   * Fatigue over the shift: spectral epochs, amplitude and MNF trends per block and task segment,
+   * JASA categories (lib/exposure/fatigue-settings.ts has every key's meaning and default).
+   */
+  fatigue: FatigueSettings;
 }
 
 /** The one default of every setting. Frozen: copy before changing. */
@@ -155,6 +161,7 @@ export const DEFAULTS: Readonly<Settings> = deepFreeze({
   percentiles: [10, 50, 90],
   eva: { amplitude_edges: [0, 1, 5, 10, 20, 30], duration_edges_s: [0, 1, 3, 7, 15, 31, 63] },
   trace_step_s: 10,
+  fatigue: { ...FATIGUE_DEFAULTS },
 } as Settings);
 
 function deepFreeze<T>(o: T): T {
@@ -205,4 +212,12 @@ export const SETTINGS_TABLE: readonly SettingDescription[] = Object.freeze([
   { key: 'eva.amplitude_edges', value: DEFAULTS.eva.amplitude_edges, unit: 'normalized unit', meaning: 'EVA amplitude class edges; classes [a, b), the last open above.', source: 'illustrative (from memory), Mathiassen & Winkel 1991' },
   { key: 'eva.duration_edges_s', value: DEFAULTS.eva.duration_edges_s, unit: 's', meaning: 'EVA duration class edges; classes [a, b), the last open above.', source: 'illustrative (from memory), Mathiassen & Winkel 1991' },
   { key: 'trace_step_s', value: DEFAULTS.trace_step_s, unit: 's', meaning: 'Step of the decimated envelope traces drawn in the report.', source: 'tool choice' },
+  { key: 'fatigue.enabled', value: DEFAULTS.fatigue.enabled, unit: '', meaning: 'Compute spectral epochs, amplitude and mean-frequency trends and JASA categories over the shift.', source: 'Luttmann et al. 2000 (JASA)' },
+  { key: 'fatigue.epoch_s', value: DEFAULTS.fatigue.epoch_s, unit: 's', meaning: 'Epoch length for RMS, mean and median power frequency (one Hann-windowed FFT per epoch).', source: '0.5–1 s quasi-stationary epochs (CEDE glossary, McManus et al. 2021)' },
+  { key: 'fatigue.block_s', value: DEFAULTS.fatigue.block_s, unit: 's', meaning: 'Length of the time blocks whose trends are fitted (the last block may be shorter); task segments get their own trends too.', source: 'tool choice' },
+  { key: 'fatigue.active_threshold_pct', value: DEFAULTS.fatigue.active_threshold_pct, unit: 'normalized unit', meaning: 'Only epochs at or above this noise-corrected amplitude enter the trends (the spectrum of rest is noise); not applied without a reference.', source: 'tool choice' },
+  { key: 'fatigue.active_noise_factor', value: DEFAULTS.fatigue.active_noise_factor, unit: '', meaning: 'Only epochs whose RMS is at least this many times the noise RMS enter the trends (when a noise level is known).', source: 'tool choice' },
+  { key: 'fatigue.band_hz', value: DEFAULTS.fatigue.band_hz, unit: 'Hz', meaning: 'Band [low, high] of the mean and median frequency; null = the band-pass of the analysis.', source: 'tool choice' },
+  { key: 'fatigue.min_epochs', value: DEFAULTS.fatigue.min_epochs, unit: '', meaning: 'Fewest active epochs for a trend; blocks with fewer are reported as insufficient data.', source: 'tool choice' },
+  { key: 'fatigue.series_step_s', value: DEFAULTS.fatigue.series_step_s, unit: 's', meaning: 'Step of the mean-frequency-over-time series drawn in the report (median of the active epochs per step).', source: 'tool choice' },
 ]);

@@ -14,9 +14,12 @@ export function effectiveSettings(job: JobFile, ctx: JobContext): Settings {
     ...structuredClone(DEFAULTS as Settings),
     ...structuredClone(s),
     eva: { ...structuredClone(DEFAULTS.eva), ...structuredClone(s.eva ?? {}) },
+    fatigue: { ...structuredClone(DEFAULTS.fatigue), ...structuredClone(s.fatigue ?? {}) },
   } as Settings;
   const at = (...k: KeyPathStep[]): KeyPathStep[] => ['settings', ...k];
   if (settings.band_hz[0] >= settings.band_hz[1]) ctx.issue(at('band_hz'), jobMsg.bandOrder(settings.band_hz[0], settings.band_hz[1]));
+  const fb = settings.fatigue.band_hz;
+  if (fb && fb[0] >= fb[1]) ctx.issue(at('fatigue', 'band_hz'), jobMsg.bandOrder(fb[0], fb[1]));
   for (const [key, edges] of [['amplitude_edges', settings.eva.amplitude_edges], ['duration_edges_s', settings.eva.duration_edges_s]] as const) {
     for (let i = 1; i < edges.length; i++) {
       if (!(edges[i] > edges[i - 1])) { ctx.issue(at('eva', key, i), jobMsg.notIncreasing()); break; }

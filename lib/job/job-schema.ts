@@ -166,6 +166,22 @@ const settings = {
       },
     },
     trace_step_s: { type: 'number', exclusiveMinimum: 0, title: 'Trace step, s', description: `Step of the decimated envelope traces in the report, s. Default ${DEFAULTS.trace_step_s}.`, default: DEFAULTS.trace_step_s },
+    fatigue: {
+      title: 'Fatigue over the shift',
+      description: 'Spectral epochs, amplitude and mean-frequency trends per block and task segment, and JASA categories (empty means the defaults).',
+      type: ['object', 'null'],
+      additionalProperties: false,
+      properties: {
+        enabled: { type: 'boolean', title: 'Enabled', description: `Run the fatigue analysis. Default ${DEFAULTS.fatigue.enabled}.`, default: DEFAULTS.fatigue.enabled },
+        epoch_s: { type: 'number', minimum: 0.05, maximum: 10, title: 'Epoch, s', description: `Epoch length for RMS, MNF and MDF, s (0.5–1 s are quasi-stationary). Default ${DEFAULTS.fatigue.epoch_s}.`, default: DEFAULTS.fatigue.epoch_s },
+        block_s: { type: 'number', exclusiveMinimum: 0, title: 'Block, s', description: `Length of the time blocks whose trends are fitted, s. Default ${DEFAULTS.fatigue.block_s}.`, default: DEFAULTS.fatigue.block_s },
+        active_threshold_pct: { type: 'number', minimum: 0, title: 'Active threshold', description: `Epochs below this noise-corrected amplitude (normalized unit) are left out of the trends. Default ${DEFAULTS.fatigue.active_threshold_pct}.`, default: DEFAULTS.fatigue.active_threshold_pct },
+        active_noise_factor: { type: 'number', minimum: 0, title: 'Active noise factor', description: `Epochs whose RMS is below this many times the noise RMS are left out. Default ${DEFAULTS.fatigue.active_noise_factor}.`, default: DEFAULTS.fatigue.active_noise_factor },
+        band_hz: { anyOf: [numberPair, { type: 'null' }], title: 'MNF band, Hz', description: 'Band [low, high] of the mean and median frequency, Hz; null = the band-pass of the analysis. Default null.', default: DEFAULTS.fatigue.band_hz },
+        min_epochs: { type: 'integer', minimum: 3, title: 'Fewest epochs', description: `Fewest active epochs for a trend. Default ${DEFAULTS.fatigue.min_epochs}.`, default: DEFAULTS.fatigue.min_epochs },
+        series_step_s: { type: 'number', exclusiveMinimum: 0, title: 'Series step, s', description: `Step of the MNF-over-time series in the report, s. Default ${DEFAULTS.fatigue.series_step_s}.`, default: DEFAULTS.fatigue.series_step_s },
+      },
+    },
   },
 };
 

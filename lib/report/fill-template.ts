@@ -13,7 +13,7 @@ export function fillTemplate(template: string, vars: TemplateVars): string | nul
   let missing = false;
   const out = template.replace(/\{([A-Za-z0-9_]+)\}/g, (_m, name: string) => {
     const v = vars[name];
-    if (v === null || v === undefined || v === '') { missing = true; return ''; }
+    if (v === null || v === undefined) { missing = true; return ''; }
     return String(v);
   });
   return missing ? null : out;

@@ -23,3 +23,9 @@ export function formatMinutes(s: number | null | undefined): string {
 export function formatHours(s: number): string {
   return formatNumber(s / 3600, 1);
 }
+
+/** A setting value as typed (shortest exact decimal, at most 6 decimals): 0.1 → '0.1', 240 → '240'. */
+export function formatSetting(x: number): string {
+  const s = String(Math.round(x * 1e6) / 1e6);
+  return s.startsWith('-') ? '−' + s.slice(1) : s;
+}

@@ -2,7 +2,7 @@
 // metrics, tables break across sheets with their header row repeated, charts and caution boxes
 // are never split, and every sheet gets a "page N of M" footer. The output is a list of draw
 // items per sheet (PDF coordinates: pt, origin bottom left) that renderPdf() only has to paint.
-import { chartMarks, type Mark, type Measure } from './charts/chart-marks.js';
+import { chartMarks, fitText, type Mark, type Measure } from './charts/chart-marks.js';
 import type { ChartModel, RGB } from './charts/chart-model.js';
 import { INK, MUTED } from './charts/chart-styles.js';
 import { fillRequired } from './fill-template.js';
@@ -62,7 +62,7 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
   function lines(t: string, width: number, size: number, bold = false) { return wrapText(safeText(t), width, size, measure, bold); }
 
   function paragraph(t: string, size: number, id: string, x = PAGE.left, width = CONTENT_WIDTH, bold = false, color: RGB = INK) {
-    const lead = size * LEAD;
+    const lead = size * (size < BODY ? 1.3 : LEAD);
     for (const line of lines(t, width, size, bold)) {
       ensure(lead, id);
       y -= lead;
@@ -73,9 +73,9 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
   function layoutBlock(b: Block, id: string): void {
     switch (b.type) {
       case 'title': {
-        paragraph(b.text, 20, id, PAGE.left, CONTENT_WIDTH, true);
-        y -= 4;
-        for (const l of b.lines) paragraph(l, 9, id, PAGE.left, CONTENT_WIDTH, false, MUTED);
+        paragraph(b.text, 18, id, PAGE.left, CONTENT_WIDTH, true);
+        y -= 3;
+        for (const l of b.lines) paragraph(l, 8.5, id, PAGE.left, CONTENT_WIDTH, false, MUTED);
         y -= 6;
         cur.items.push({ k: 'line', x1: PAGE.left, y1: r2(y), x2: PAGE.left + CONTENT_WIDTH, y2: r2(y), color: INK, width: 1.2 });
         y -= 6;
@@ -85,13 +85,13 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
         const size = HEADING[b.level];
         const h = size * LEAD * lines(b.text, CONTENT_WIDTH, size, true).length + (b.level === 1 ? 8 : 5);
         if (y < top) ensure(h + 70, id); // keep a heading with the start of what follows
-        y -= b.level === 1 ? 4 : 6;
+        y -= b.level === 1 ? 4 : b.level === 2 ? 5 : 2;
         paragraph(b.text, size, id, PAGE.left, CONTENT_WIDTH, true);
         if (b.level === 1) {
           y -= 3;
           cur.items.push({ k: 'line', x1: PAGE.left, y1: r2(y), x2: PAGE.left + CONTENT_WIDTH, y2: r2(y), color: RULE, width: 0.6 });
         }
-        y -= 4;
+        y -= b.level === 3 ? 1 : 4;
         return;
       }
       case 'paragraph':
@@ -100,21 +100,22 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
         return;
       case 'bullets': {
         const size = b.small ? SMALL : BODY;
+        const lead = size * (b.small ? 1.3 : LEAD);
         for (const item of b.items) {
           const ls = lines(item, CONTENT_WIDTH - 12, size);
           ls.forEach((l, i) => {
-            ensure(size * LEAD, id);
-            y -= size * LEAD;
+            ensure(lead, id);
+            y -= lead;
             if (i === 0) put('•', PAGE.left + 2, y + size * 0.28, size);
             put(l, PAGE.left + 12, y + size * 0.28, size);
           });
-          y -= 1.5;
+          y -= 0.8;
         }
         y -= 3;
         return;
       }
       case 'caution': {
-        const size = SMALL, lead = size * LEAD, pad = 8, inner = CONTENT_WIDTH - 2 * pad - 14;
+        const size = 8, lead = size * 1.25, pad = 7, inner = CONTENT_WIDTH - 2 * pad - 14;
         const itemLines = b.items.map((it) => lines(it, inner, size));
         const h = pad + 11 * LEAD + itemLines.reduce((s, ls) => s + ls.length * lead + 2, 0) + pad;
         y -= 4;
@@ -146,8 +147,19 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
 
   function table(columns: TableColumn[], rows: string[][], id: string): void {
     const size = TABLE, lead = size * 1.3, padX = 3, padY = 2.6;
-    const total = columns.reduce((s, c) => s + c.width, 0);
-    const widths = columns.map((c) => (c.width / total) * CONTENT_WIDTH);
+    // each column at least as wide as the longest word of its header; the rest shared by the given shares
+    const minW = columns.map((c) => Math.max(...safeText(c.label).split(/[ ]+/).map((w) => measure(w, size, true))) + 2 * padX + 0.5);
+    let widths = columns.map(() => 0);
+    let free = columns.map((_, i) => i);
+    let room = CONTENT_WIDTH;
+    for (let guard = 0; guard < columns.length; guard++) {
+      const share = free.reduce((s, i) => s + columns[i].width, 0);
+      const tooNarrow = free.filter((i) => (columns[i].width / share) * room < minW[i]);
+      if (!tooNarrow.length) { for (const i of free) widths[i] = (columns[i].width / share) * room; break; }
+      for (const i of tooNarrow) { widths[i] = minW[i]; room -= minW[i]; }
+      free = free.filter((i) => !tooNarrow.includes(i));
+      if (!free.length) { widths = widths.map((w) => (w * CONTENT_WIDTH) / (CONTENT_WIDTH - room)); break; }
+    }
     const xs: number[] = [];
     widths.reduce((x, w) => (xs.push(x), x + w), PAGE.left);
     const wrapRow = (cells: string[], bold: boolean) => cells.map((c, i) => lines(c ?? '', widths[i] - 2 * padX, size, bold));
@@ -208,7 +220,10 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
   pages.forEach((p, i) => {
     const yb = PAGE.bottom - 26;
     p.items.push({ k: 'line', x1: PAGE.left, y1: yb + 10, x2: r2(PAGE.left + CONTENT_WIDTH), y2: yb + 10, color: RULE, width: 0.5 });
-    const right = safeText(fillRequired(text.footer, { title: text.title, page: i + 1, pages: n }));
+    const pageOnly = fillRequired(text.footer, { title: '', page: i + 1, pages: n });
+    const room = CONTENT_WIDTH - measure(text.footerLeft, 7.5) - measure(pageOnly, 7.5) - 24;
+    const title = fitText(safeText(text.title), room, 7.5, measure) || '…';
+    const right = safeText(fillRequired(text.footer, { title, page: i + 1, pages: n }));
     p.items.push({ k: 'text', x: r2(PAGE.left + CONTENT_WIDTH - measure(right, 7.5)), y: yb, text: right, size: 7.5, color: MUTED });
     p.items.push({ k: 'text', x: PAGE.left, y: yb, text: safeText(text.footerLeft), size: 7.5, color: MUTED });
   });

@@ -7,7 +7,7 @@ import type { Mark } from './charts/chart-marks.js';
 import type { RGB } from './charts/chart-model.js';
 import type { DrawItem, LaidPage } from './layout-report.js';
 import { PAGE } from './layout-report.js';
-import { FONT_FEATURES, type ReportFonts } from './report-fonts.js';
+import { FONT_FEATURES, glyphPerCodePoint, type FkFont, type ReportFonts } from './report-fonts.js';
 import type { ReportMeta } from './report-model.js';
 
 /** Plain decimal (never exponent form), at most 2 decimals. */
@@ -28,6 +28,8 @@ export async function renderPdf(pages: LaidPage[], meta: ReportMeta, fonts: Repo
   pdf.registerFontkit(fontkit);
   const regular = await pdf.embedFont(fonts.regularBytes, { subset: true, features: { ...FONT_FEATURES } });
   const bold = await pdf.embedFont(fonts.boldBytes, { subset: true, features: { ...FONT_FEATURES } });
+  // pdf-lib 1.17.1 keeps the fontkit font at (PDFFont).embedder.font; encodeText calls its layout().
+  for (const f of [regular, bold]) glyphPerCodePoint((f as unknown as { embedder: { font: FkFont } }).embedder.font);
 
   for (const lp of pages) {
     const page = pdf.addPage([PAGE.width, PAGE.height]);

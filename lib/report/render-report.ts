@@ -27,20 +27,38 @@ export async function layoutResults(results: StudyResults): Promise<{ pages: Lai
   return { pages, model };
 }
 
+export interface RenderedReport {
+  bytes: Uint8Array;
+  /** Number of PDF pages. */
+  pageCount: number;
+  /** SVG files written (empty without svgDir). */
+  svgFiles: string[];
+}
+
+/** renderReport with the page count and the SVG files written (for the CLI's summary line). */
+export async function renderReportInfo(results: StudyResults, opts: ReportOptions = {}): Promise<RenderedReport> {
+  assertResults(results, '(results)');
+  const { pages, model } = await layoutResults(results);
+  const fonts = await loadReportFonts();
+  const svgFiles: string[] = [];
+  if (opts.svgDir) {
+    mkdirSync(opts.svgDir, { recursive: true });
+    for (const p of pages) for (const it of p.items) if (it.k === 'chart') {
+      const file = join(opts.svgDir, `${it.chart.id}.svg`);
+      writeAtomic(file, chartToSvg(it.chart, fonts.measure));
+      svgFiles.push(file);
+    }
+  }
+  return { bytes: await renderPdf(pages, model.meta, fonts), pageCount: pages.length, svgFiles };
+}
+
 /**
  * Render the exposure report of `results` to PDF bytes. Deterministic: the same results give the
  * same bytes. Throws InputError if `results` is not a shiftload-results/1 object.
  * @example const pdf = await renderReport(results, { svgDir: 'out/charts' })
  */
 export async function renderReport(results: StudyResults, opts: ReportOptions = {}): Promise<Uint8Array> {
-  assertResults(results, '(results)');
-  const { pages, model } = await layoutResults(results);
-  const fonts = await loadReportFonts();
-  if (opts.svgDir) {
-    mkdirSync(opts.svgDir, { recursive: true });
-    for (const p of pages) for (const it of p.items) if (it.k === 'chart') writeAtomic(join(opts.svgDir, `${it.chart.id}.svg`), chartToSvg(it.chart, fonts.measure));
-  }
-  return renderPdf(pages, model.meta, fonts);
+  return (await renderReportInfo(results, opts)).bytes;
 }
 
 /** Render and write the report atomically to `outPath`; returns the number of bytes written. */

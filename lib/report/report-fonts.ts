@@ -5,10 +5,14 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Measure } from './charts/chart-marks.js';
 
+/** A fontkit glyph: id and advance width in font units. */
+export interface FkGlyph { id: number; advanceWidth: number }
+
 /** The part of a fontkit font the report uses. */
 export interface FkFont {
   unitsPerEm: number;
-  layout(text: string, features?: Record<string, boolean>): { glyphs: { id: number; advanceWidth: number }[] };
+  layout(text: string, features?: Record<string, boolean>): { glyphs: FkGlyph[] };
+  glyphForCodePoint(cp: number): FkGlyph;
   hasGlyphForCodePoint(cp: number): boolean;
 }
 
@@ -23,8 +27,21 @@ export interface ReportFonts {
   safeText(text: string): string;
 }
 
-/** OpenType features used for both measuring and drawing: ligatures off, so text extracts as typed. */
+/** OpenType features passed to pdf-lib (ligatures off, so text extracts as typed). */
 export const FONT_FEATURES = { liga: false, clig: false, calt: false, kern: false } as const;
+
+/**
+ * Replace a fontkit font's shaping `layout` with a plain cmap lookup (one glyph per code point).
+ * Used on the font inside pdf-lib's embedder: shaping was most of the render time, and for the
+ * Latin text of a report with ligatures off it selects the same glyphs.
+ */
+export function glyphPerCodePoint(font: FkFont): void {
+  font.layout = (text: string) => {
+    const glyphs: FkGlyph[] = [];
+    for (const ch of text) glyphs.push(font.glyphForCodePoint(ch.codePointAt(0) as number));
+    return { glyphs };
+  };
+}
 
 let cached: Promise<ReportFonts> | null = null;
 
@@ -38,20 +55,22 @@ export function loadReportFonts(): Promise<ReportFonts> {
     const boldBytes = new Uint8Array(readFileSync(req.resolve('dejavu-fonts-ttf/ttf/DejaVuSans-Bold.ttf')));
     const regular = fk.create(regularBytes);
     const bold = fk.create(boldBytes);
-    const cache = new Map<string, number>();
-    const unitWidth = (text: string, isBold: boolean): number => {
-      const key = (isBold ? 'b' : 'r') + text;
-      let w = cache.get(key);
-      if (w === undefined) {
-        const f = isBold ? bold : regular;
-        w = 0;
-        for (const g of f.layout(text, { ...FONT_FEATURES }).glyphs) w += g.advanceWidth;
-        w /= f.unitsPerEm;
-        cache.set(key, w);
+    // One glyph per code point (cmap lookup, no shaping): fast, and exactly what renderPdf draws
+    // (see glyphPerCodePoint). Widths cached per code point.
+    const widths = [new Map<number, number>(), new Map<number, number>()];
+    const measure: Measure = (text, size, isBold = false) => {
+      const f = isBold ? bold : regular;
+      const cache = widths[isBold ? 1 : 0];
+      let w = 0;
+      for (let i = 0; i < text.length; i++) {
+        const cp = text.codePointAt(i) as number;
+        if (cp > 0xffff) i++;
+        let a = cache.get(cp);
+        if (a === undefined) { a = f.glyphForCodePoint(cp).advanceWidth / f.unitsPerEm; cache.set(cp, a); }
+        w += a;
       }
-      return w;
+      return w * size;
     };
-    const measure: Measure = (text, size, isBold = false) => unitWidth(text, isBold) * size;
     const safeText = (text: string): string => {
       let out = '';
       for (const ch of text) {

@@ -11,11 +11,12 @@ import { pairedChart } from './charts/paired-chart.js';
 import { spectrumChart } from './charts/spectrum-chart.js';
 import { timelineChart } from './charts/timeline-chart.js';
 import { fillRequired, fillTemplate, type TemplateVars } from './fill-template.js';
-import { formatHours, formatMinutes, formatNumber } from './format-number.js';
+import { formatHours, formatMinutes, formatNumber, formatSetting } from './format-number.js';
 import { medianRange } from './median-range.js';
 import { readComparisons, type ReportComparison } from './read-comparisons.js';
 import { loadReportTexts, type ReportTexts } from './report-texts.js';
 import { flattenSettings, settingAt } from './setting-at.js';
+import { SETTINGS_TABLE } from '../job/defaults.js';
 
 export interface TableColumn {
   label: string;
@@ -87,29 +88,29 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
   const cite = (...keys: string[]) => keys.forEach((k) => usedRefs.add(k));
   const rowsOf = (muscle: string, segment: string, condition: string) =>
     rows.filter((r) => r.muscle === muscle && r.segment === segment && r.condition === condition);
-  const gapMin = settingAt(results.settings, ['gaps.min_duration_s', 'gap.min_duration_s', 'rest.gap_min_s']);
+  const gapMin = settingAt(results.settings, ['gap_min_s', 'gaps.min_duration_s', 'gap.min_duration_s']);
   const gapThreshold = rows.length ? rows[0].gap_threshold : undefined;
   const sameThreshold = rows.every((r) => r.gap_threshold === gapThreshold && r.unit === rows[0].unit);
 
   // ---------------------------------------------------------------- page 1: committee summary
   const p1: Block[] = [];
   const dates = study.start_date ? (study.end_date && study.end_date !== study.start_date ? `${study.start_date} to ${study.end_date}` : study.start_date) : undefined;
+  const join = (...parts: (string | null)[]) => parts.filter((x): x is string => x !== null).join(' · ') || null;
   const titleLines = [
-    fillTemplate(t.titleBlock.site, { site: study.site }),
-    fillTemplate(t.titleBlock.dates, { dates }),
-    fillTemplate(t.titleBlock.organisation, { organisation: study.organisation }),
-    fillTemplate(t.titleBlock.generated, { created: results.created?.replace('T', ' ').replace(/:\d\d(\.\d+)?Z$/, ' UTC'), version: results.tool.version }),
+    join(fillTemplate(t.titleBlock.site, { site: study.site }), fillTemplate(t.titleBlock.dates, { dates })),
+    join(fillTemplate(t.titleBlock.organisation, { organisation: study.organisation }),
+      fillTemplate(t.titleBlock.generated, { created: results.created?.replace('T', ' ').replace(/:\d\d(\.\d+)?Z$/, ' UTC'), version: results.tool.version })),
     study.description ?? null,
-  ].filter((s): s is string => s !== null);
+  ].filter((x): x is string => x !== null);
   p1.push({ type: 'title', text: results.title, lines: titleLines });
   p1.push({ type: 'heading', level: 2, text: t.headings.who });
   const recordedS = recordedSeconds(rows);
-  p1.push({ type: 'paragraph', text: fillRequired(t.who, {
+  p1.push({ type: 'paragraph', small: true, text: fillRequired(t.who, {
     nWorkers: workers.length, nConditions: conditions.length, conditions: conditions.join(', '), muscles: muscles.join(', '),
     hours: formatHours(recordedS), segments: segments.join(', ') || '–',
   }) });
   p1.push({ type: 'heading', level: 2, text: t.headings.figures });
-  const intro = fillTemplate(t.figuresIntro, { gapMin: typeof gapMin === 'number' ? formatNumber(gapMin) : undefined, gapThreshold: sameThreshold ? formatNumber(gapThreshold) : undefined, unit: units[0] });
+  const intro = fillTemplate(t.figuresIntro, { nWorkers: workers.length, gapMin: typeof gapMin === 'number' ? formatSetting(gapMin) : undefined, gapThreshold: sameThreshold && gapThreshold !== undefined ? formatSetting(gapThreshold) : undefined, unit: units[0] });
   if (intro) p1.push({ type: 'paragraph', text: intro, small: true });
   for (const m of muscles) {
     const items: string[] = [];
@@ -119,17 +120,17 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
       const p50 = medianRange(rs.map((r) => num(r, PCT.median)));
       const gpm = medianRange(rs.map((r) => r.gaps_per_min));
       const line = fillTemplate(t.figureSentence, {
-        muscle: cap(m), segment: s, condition: c, unit: rs[0].unit,
+        muscle: m, segment: s, condition: c, unit: rs[0].unit,
         p50: p50 && formatNumber(p50.median), p50min: p50 && formatNumber(p50.min), p50max: p50 && formatNumber(p50.max),
         gaps: gpm && formatNumber(gpm.median), gapsmin: gpm && formatNumber(gpm.min), gapsmax: gpm && formatNumber(gpm.max),
-        n: rs.length,
+        nNote: rs.length === workers.length ? '' : fillRequired(t.figureN, { n: rs.length }),
       });
       if (line) items.push(line);
     }
-    if (items.length) p1.push({ type: 'bullets', items, small: true });
+    if (items.length) p1.push({ type: 'heading', level: 3, text: cap(m) }, { type: 'bullets', items, small: true });
   }
   p1.push({ type: 'heading', level: 2, text: t.headings.context });
-  for (const para of t.context as string[]) p1.push({ type: 'paragraph', text: para, small: true });
+  p1.push({ type: 'paragraph', text: (t.context as string[])[0], small: true });
   cite('jonsson1982', 'hansson2010');
   const nonMve = units.filter((u) => u !== '%MVE');
   if (nonMve.length) p1.push({ type: 'paragraph', text: fillRequired(t.contextUnitNote, { unit: nonMve.join(', ') }), small: true });
@@ -139,6 +140,7 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
 
   // ---------------------------------------------------------------- overview charts + table
   const pOverview: Block[] = [{ type: 'heading', level: 1, text: t.headings.overview }, { type: 'paragraph', text: t.overviewIntro, small: true }];
+  const ctxBlocks: Block[] = [{ type: 'heading', level: 2, text: t.headings.context }, ...(t.context as string[]).map((text): Block => ({ type: 'paragraph', text, small: true }))];
   for (const m of muscles) {
     const mUnit = rows.find((r) => r.muscle === m)?.unit ?? unit;
     const levelGroups: BarGroup[] = segments.map((s) => ({ label: s, clusters: (['static', 'median', 'peak'] as const).map((lv) => ({ label: L[lv], values: conditions.map((c) => medianRange(rowsOf(m, s, c).map((r) => num(r, PCT[lv])))) })) }));
@@ -148,17 +150,20 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
   }
   // table: medians across workers beside the historical values
   const ctxRows: string[][] = [];
+  if (units.every((u) => u === '%MVE')) ctxRows.push([t.contextTableRow, '', '', '2–5', '10–14', '50–70', '', '']);
+  let prevM = '', prevS = '';
   for (const m of muscles) for (const s of [...segments, 'all']) for (const c of conditions) {
     const rs = rowsOf(m, s, c);
     if (!rs.length) continue;
+    const showM = m !== prevM, showS = showM || s !== prevS;
+    prevM = m; prevS = s;
     const f = (k: string) => { const v = medianRange(rs.map((r) => num(r, k))); return v ? `${formatNumber(v.median)} (${formatNumber(v.min)}–${formatNumber(v.max)})` : '–'; };
-    ctxRows.push([m, s, c, f('p10'), f('p50'), f('p90'), (() => { const v = medianRange(rs.map((r) => r.gaps_per_min)); return v ? formatNumber(v.median) : '–'; })(), (() => { const v = medianRange(rs.map((r) => r.rest_pct)); return v ? formatNumber(v.median) : '–'; })()]);
+    ctxRows.push([showM ? m : '', showS ? s : '', c, f('p10'), f('p50'), f('p90'), (() => { const v = medianRange(rs.map((r) => r.gaps_per_min)); return v ? formatNumber(v.median) : '–'; })(), (() => { const v = medianRange(rs.map((r) => r.rest_pct)); return v ? formatNumber(v.median) : '–'; })()]);
   }
-  if (units.every((u) => u === '%MVE')) ctxRows.push(['Jonsson 1982, work ≥ 1 h (%MVC, from memory)', '', '', '2–5', '10–14', '50–70', '', '']);
-  pOverview.push({ type: 'table', small: true, columns: [
-    { label: L.muscle, width: 1.6 }, { label: L.segment, width: 1.0 }, { label: L.condition, width: 1.1 },
-    { label: `${L.static} (${unit})`, width: 1.0, align: 'right' }, { label: `${L.median} (${unit})`, width: 1.0, align: 'right' },
-    { label: `${L.peak} (${unit})`, width: 1.0, align: 'right' }, { label: L.gapsPerMin, width: 0.6, align: 'right' }, { label: L.rest, width: 0.55, align: 'right' },
+  pOverview.push(...ctxBlocks, { type: 'table', small: true, columns: [
+    { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.85 }, { label: L.condition, width: 1.25 },
+    { label: `${L.static} (${unit})`, width: 1.1, align: 'right' }, { label: `${L.median} (${unit})`, width: 1.15, align: 'right' },
+    { label: `${L.peak} (${unit})`, width: 1.25, align: 'right' }, { label: L.gapsPerMin, width: 0.55, align: 'right' }, { label: L.rest, width: 0.5, align: 'right' },
   ], rows: ctxRows });
 
   // ---------------------------------------------------------------- EVA
@@ -173,7 +178,7 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
       const e0 = ms[0];
       const pooled = e0.percent_time.map((row, a) => row.map((_, d) => medianRange(ms.map((e) => e.percent_time[a]?.[d]))?.median ?? 0));
       charts.push(evaChart(`eva-${slug(m)}-${slug(c)}`, pooled, e0.amplitude_edges, e0.duration_edges_s, e0.unit,
-        fillRequired(t.captions.eva, { muscle: cap(m), segment: 'whole recording', condition: c }), { amplitude: L.amplitudeClass, duration: L.durationClass }));
+        fillRequired(t.captions.eva, { muscle: m, segment: 'whole recording', condition: c }), { amplitude: L.amplitudeClass, duration: L.durationClass }));
     }
     for (let i = 0; i < charts.length; i += 2) pEva.push({ type: 'charts', charts: charts.slice(i, i + 2) });
   }
@@ -233,7 +238,7 @@ function recordedSeconds(rows: ResultRow[]): number {
   const per = new Map<string, number>();
   for (const r of rows) {
     const key = `${r.worker}\u0000${r.condition}\u0000${r.recording}`;
-    const d = r.segment === 'all' ? r.end_s - r.start_s : 0;
+    const d = r.segment === 'all' ? rowSpan(r) : 0;
     per.set(key, Math.max(per.get(key) ?? 0, d));
   }
   let s = 0;
@@ -246,28 +251,42 @@ function qualitySentence(results: StudyResults, texts: ReportTexts, recordedS: n
   if (!f.length) return texts.t.qualityNone;
   // excluded time: per recording×signal from the "all" rows, averaged over channels of a recording
   let total = 0, excluded = 0;
-  for (const r of results.rows) if (r.segment === 'all') { total += r.end_s - r.start_s; excluded += Math.max(0, r.end_s - r.start_s - r.valid_s); }
+  for (const r of results.rows) if (r.segment === 'all') { total += rowSpan(r); excluded += Math.max(0, rowSpan(r) - r.valid_s); }
   void recordedS;
   return fillRequired(texts.t.qualitySummary, {
     nFindings: f.length, nWarnings: f.filter((x) => x.severity === 'warning').length, nErrors: f.filter((x) => x.severity === 'error').length,
-    excluded: `${formatMinutes(excluded)} min`, total: `${formatHours(total)} h (channel time)`,
+    excluded: `${formatMinutes(excluded)} min`, total: `${formatHours(total)} h`,
   });
 }
 
 function workerPage(w: string, results: StudyResults, texts: ReportTexts, o: { segments: string[]; conditions: string[]; muscles: string[] }): ReportPage {
   const { t } = texts;
   const L = t.labels as Record<string, string>;
-  const blocks: Block[] = [{ type: 'heading', level: 1, text: fillRequired(t.headings.worker, { worker: w }) }, { type: 'paragraph', text: t.workerIntro, small: true }];
   const segs = [...o.segments, 'all'];
   const wr = results.rows.filter((r) => r.worker === w).sort((a, b) =>
     o.conditions.indexOf(a.condition) - o.conditions.indexOf(b.condition) || o.muscles.indexOf(a.muscle) - o.muscles.indexOf(b.muscle) || segs.indexOf(a.segment) - segs.indexOf(b.segment));
-  blocks.push({ type: 'table', small: true, columns: [
-    { label: L.condition, width: 1.15 }, { label: L.muscle, width: 1.45 }, { label: L.segment, width: 0.95 }, { label: L.valid, width: 0.6, align: 'right' },
-    { label: L.static, width: 0.55, align: 'right' }, { label: L.median, width: 0.55, align: 'right' }, { label: L.peak, width: 0.55, align: 'right' },
-    { label: L.gapsPerMin, width: 0.6, align: 'right' }, { label: L.rest, width: 0.5, align: 'right' }, { label: L.longest, width: 0.8, align: 'right' },
-    { label: L.sustained, width: 0.65, align: 'right' }, { label: L.threshold, width: 0.75, align: 'right' },
-  ], rows: wr.map((r) => [r.condition, r.muscle, r.segment, formatMinutes(r.valid_s), formatNumber(num(r, 'p10')), formatNumber(num(r, 'p50')), formatNumber(num(r, 'p90')),
-    formatNumber(r.gaps_per_min), formatNumber(r.rest_pct), formatNumber(r.longest_without_gap_s, 0), formatNumber(r.sustained_pct), `${formatNumber(r.gap_threshold)} ${r.unit}`]) });
+  const wUnits = ordered(wr.map((r) => r.unit));
+  const uniform = wr.every((r) => r.gap_threshold === wr[0]?.gap_threshold && r.unit === wr[0]?.unit);
+  const threshold = uniform && wr.length ? fillRequired(t.workerThreshold, { value: formatSetting(wr[0].gap_threshold), unit: wr[0].unit }) : t.workerThresholdVaries;
+  const blocks: Block[] = [{ type: 'heading', level: 1, text: fillRequired(t.headings.worker, { worker: w }) },
+    { type: 'paragraph', text: fillRequired(t.workerIntro, { unit: wUnits.join(', '), threshold }), small: true }];
+  const columns: TableColumn[] = [
+    { label: L.condition, width: 1.2 }, { label: L.muscle, width: 1.55 }, { label: L.segment, width: 1.0 }, { label: L.valid, width: 0.6, align: 'right' },
+    { label: L.static, width: 0.55, align: 'right' }, { label: L.median, width: 0.6, align: 'right' }, { label: L.peak, width: 0.5, align: 'right' },
+    { label: L.gapsPerMin, width: 0.62, align: 'right' }, { label: L.rest, width: 0.5, align: 'right' }, { label: L.longest, width: 0.8, align: 'right' },
+    { label: L.sustained, width: 0.8, align: 'right' },
+  ];
+  if (!uniform) columns.push({ label: L.threshold, width: 0.75, align: 'right' });
+  let prev = '';
+  blocks.push({ type: 'table', small: true, columns, rows: wr.map((r) => {
+    const group = `${r.condition}\u0000${r.muscle}`;
+    const first = group !== prev;
+    prev = group;
+    const cells = [first ? r.condition : '', first ? r.muscle : '', r.segment, formatMinutes(r.valid_s), formatNumber(num(r, 'p10')), formatNumber(num(r, 'p50')), formatNumber(num(r, 'p90')),
+      formatNumber(r.gaps_per_min), formatNumber(r.rest_pct), formatNumber(r.longest_without_gap_s, 0), formatNumber(r.sustained_pct)];
+    if (!uniform) cells.push(`${formatSetting(r.gap_threshold)} ${r.unit}`);
+    return cells;
+  }) });
   const traces = results.traces.filter((x) => x.worker === w).sort((a, b) => o.conditions.indexOf(a.condition) - o.conditions.indexOf(b.condition) || o.muscles.indexOf(a.muscle) - o.muscles.indexOf(b.muscle));
   for (const tr of traces) blocks.push({ type: 'charts', charts: [traceChart(tr, texts, o.segments)] });
   const apdfCharts: ChartModel[] = [];
@@ -285,30 +304,47 @@ function workerPage(w: string, results: StudyResults, texts: ReportTexts, o: { s
 function traceChart(tr: EnvelopeTrace, texts: ReportTexts, segments: string[]): ChartModel {
   const { t } = texts;
   const L = t.labels as Record<string, string>;
-  const step = formatNumber(tr.step_s);
+  const step = formatSetting(tr.step_s);
   return timelineChart(`timeline-${slug(tr.worker)}-${slug(tr.condition)}-${slug(tr.muscle)}`, tr,
     fillRequired(t.captions.timeline, { muscle: tr.muscle, worker: tr.worker, condition: tr.condition, step, unit: tr.unit }),
-    { time: L.time, load: L.load, mean: `${step} s mean`, max: `${step} s maximum` }, segments);
+    { time: L.time, timeMin: L.timeMin, load: L.load, mean: `${step} s mean`, max: `${step} s maximum` }, segments);
 }
+
+/** Measures whose comparisons get statements and paired charts (the page-1 figures); the table lists all. */
+const PRIMARY_MEASURES = ['p50', 'gaps_per_min'];
 
 function comparisonBlocks(cmp: ReportComparison[], texts: ReportTexts): Block[] {
   const { t } = texts;
   const L = t.labels as Record<string, string>;
   const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.comparisons }, { type: 'paragraph', text: t.comparisonsIntro, small: true }];
+  const primary = cmp.some((c) => PRIMARY_MEASURES.includes(c.measure)) ? cmp.filter((c) => PRIMARY_MEASURES.includes(c.measure)) : cmp;
+  for (const m of ordered(primary.map((c) => c.muscle))) {
+    const mine = primary.filter((c) => c.muscle === m);
+    blocks.push({ type: 'heading', level: 2, text: cap(m) });
+    blocks.push({ type: 'bullets', small: true, items: mine.map((c) => `${cap(c.segment)}, ${measureName(c.measure, texts)}: ${c.statement}${c.descriptive_only ? ' ' + t.comparisonDescriptive : ''}`) });
+    const charts: ChartModel[] = [];
+    mine.forEach((c) => {
+      if (!c.per_worker.length) return;
+      charts.push(pairedChart(`paired-${slug(c.muscle)}-${slug(c.segment)}-${slug(c.measure)}`, c.per_worker, c.condition_a, c.condition_b, `${measureName(c.measure, texts)} (${c.unit})`,
+        fillRequired(t.captions.paired, { measure: cap(measureName(c.measure, texts)), muscle: c.muscle, segment: c.segment, unit: c.unit, a: c.condition_a, b: c.condition_b }), 160, 150));
+    });
+    for (let i = 0; i < charts.length; i += 3) blocks.push({ type: 'charts', charts: charts.slice(i, i + 3) });
+  }
+  blocks.push({ type: 'heading', level: 2, text: t.headings.comparisonTable });
   blocks.push({ type: 'table', small: true, columns: [
-    { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.9 }, { label: L.measure, width: 0.9 }, { label: `${L.condition} A → B`, width: 1.6 },
-    { label: L.n, width: 0.3, align: 'right' }, { label: L.difference, width: 0.9, align: 'right' }, { label: L.ci, width: 1.0, align: 'right' }, { label: L.pValue, width: 0.5, align: 'right' },
-  ], rows: cmp.map((c) => [c.muscle, c.segment, c.measure, `${c.condition_a} → ${c.condition_b}`, String(c.n), `${formatNumber(c.median_difference)} ${c.unit}`,
+    { label: L.muscle, width: 1.3 }, { label: L.segment, width: 0.9 }, { label: L.measure, width: 1.0 }, { label: `${L.condition} A → B`, width: 1.4 },
+    { label: L.n, width: 0.3, align: 'right' }, { label: L.difference, width: 0.9, align: 'right' }, { label: L.ci, width: 1.25, align: 'right' }, { label: L.pValue, width: 0.5, align: 'right' },
+  ], rows: cmp.map((c) => [c.muscle, c.segment, measureName(c.measure, texts), `${c.condition_a} → ${c.condition_b}`, String(c.n), `${formatNumber(c.median_difference)} ${c.unit}`,
     c.descriptive_only || c.ci_low === null || c.ci_high === null ? '–' : `${formatNumber(c.ci_low)} to ${formatNumber(c.ci_high)}`, c.p_value === null ? '–' : formatP(c.p_value)]) });
-  const charts: ChartModel[] = [];
-  cmp.forEach((c, i) => {
-    if (!c.per_worker.length) return;
-    charts.push(pairedChart(`paired-${i + 1}-${slug(c.muscle)}-${slug(c.segment)}-${slug(c.measure)}`, c.per_worker, c.condition_a, c.condition_b, `${c.measure} (${c.unit})`,
-      fillRequired(t.captions.paired, { measure: cap(c.measure), muscle: c.muscle, segment: c.segment, unit: c.unit, a: c.condition_a, b: c.condition_b }) + ' ' + c.statement +
-      (c.descriptive_only ? ' ' + t.comparisonDescriptive : '')));
-  });
-  for (let i = 0; i < charts.length; i += 3) blocks.push({ type: 'charts', charts: charts.slice(i, i + 3) });
   return blocks;
+}
+
+/** Plain name of a ResultRow measure key (p50 → "median load"); other percentiles as "P<q> load". */
+function measureName(key: string, texts: ReportTexts): string {
+  const named = (texts.t.measures as Record<string, string>)[key];
+  if (named) return named;
+  const m = /^p(\d+(?:\.\d+)?)$/.exec(key);
+  return m ? `${m[1]}th-percentile load` : key;
 }
 
 function formatP(p: number): string { return p < 0.001 ? '< 0.001' : formatNumber(p, p < 0.01 ? 3 : 2); }
@@ -318,45 +354,75 @@ function methodsBlocks(results: StudyResults, texts: ReportTexts, cite: (...k: s
   const M = t.methods as Record<string, string>;
   const s = results.settings;
   const L = t.labels as Record<string, string>;
+  // Paths: the flat keys of lib/job/defaults.ts first, then older nested spellings.
   const get = (...paths: string[]) => settingAt(s, paths);
-  const fmt = (v: unknown) => (typeof v === 'number' ? formatNumber(v, Number.isInteger(v) ? 0 : undefined) : typeof v === 'string' ? v : typeof v === 'boolean' ? String(v) : undefined);
-  const band = get('filter.band_hz', 'bandpass.band_hz') as number[] | undefined;
-  const zero = get('filter.zero_phase', 'bandpass.zero_phase');
-  const notch = get('filter.notch_hz', 'notch.freq_hz', 'notch_hz');
+  const fmt = (v: unknown) => (typeof v === 'number' ? formatSetting(v) : typeof v === 'string' ? v : typeof v === 'boolean' ? String(v) : undefined);
+  const band = get('band_hz', 'filter.band_hz', 'bandpass.band_hz') as number[] | undefined;
+  const zero = get('zero_phase', 'filter.zero_phase', 'bandpass.zero_phase');
+  const notch = get('mains_hz', 'filter.notch_hz', 'notch.freq_hz', 'notch_hz');
+  const harmonics = get('mains_harmonics');
   const noiseOn = get('noise_correction.enabled', 'noise.enabled', 'noise_correction');
-  const normMethod = String(get('normalization.method', 'normalize.method', 'reference.method') ?? results.rows[0]?.unit ?? '').toLowerCase();
+  const normMethod = String(get('normalize', 'normalization.method', 'normalize.method') ?? results.rows[0]?.unit ?? '').toLowerCase();
   const normText = /mve|mvc/.test(normMethod) ? M.normMve : /rve/.test(normMethod) ? M.normRve : /peak/.test(normMethod) ? M.normTaskPeak : /none|uv/.test(normMethod) ? M.normNone : undefined;
+  const refWindow = fmt(get('reference_window_s', 'normalization.reference_window_s', 'normalize.window_s')) ?? L.notRecorded;
+  const filterType = ((v) => (v === undefined || v === 'butterworth' ? 'Butterworth' : v))(fmt(get('filter_type', 'filter.type', 'bandpass.type')));
   const vars: TemplateVars = {
-    filterType: fmt(get('filter.type', 'bandpass.type')) ?? L.notRecorded,
-    order: fmt(get('filter.order', 'bandpass.order')) ?? L.notRecorded,
-    highpass: fmt(get('filter.highpass_hz', 'bandpass.low_hz') ?? band?.[0]) ?? L.notRecorded,
-    lowpass: fmt(get('filter.lowpass_hz', 'bandpass.high_hz') ?? band?.[1]) ?? L.notRecorded,
+    filterType,
+    order: fmt(get('filter_order', 'filter.order', 'bandpass.order')) ?? L.notRecorded,
+    highpass: fmt(band?.[0] ?? get('filter.highpass_hz', 'bandpass.low_hz')) ?? L.notRecorded,
+    lowpass: fmt(band?.[1] ?? get('filter.lowpass_hz', 'bandpass.high_hz')) ?? L.notRecorded,
     zeroPhase: zero === true ? M.zeroPhaseYes : zero === false ? M.zeroPhaseNo : L.notRecorded,
-    window: fmt(get('envelope.window_s', 'rms.window_s')) ?? L.notRecorded,
-    rate: fmt(get('envelope.rate_hz', 'rms.rate_hz')) ?? L.notRecorded,
-    notch: typeof notch === 'number' ? fillTemplate(M.notch, { notch: fmt(notch) }) ?? '' : '',
-    noise: noiseOn === false ? M.noiseOff : fillTemplate(M.noise, { noiseSource: describeNoiseSource(get('noise_correction.source', 'noise.source')), noiseWindow: fmt(get('noise_correction.window_s', 'noise.window_s')) ?? L.notRecorded }) ?? M.noiseOff,
-    normalization: normText ? (fillTemplate(normText, { refWindow: fmt(get('normalization.reference_window_s', 'normalize.window_s')) ?? L.notRecorded }) ?? L.notRecorded) : L.notRecorded,
+    window: fmt(get('rms_window_s', 'envelope.window_s', 'rms.window_s')) ?? L.notRecorded,
+    rate: fmt(get('envelope_rate_hz', 'envelope.rate_hz', 'rms.rate_hz')) ?? L.notRecorded,
+    notch: typeof notch === 'number' ? fillTemplate(M.notch, { notch: fmt(notch),
+      harmonics: typeof harmonics === 'number' && harmonics > 1 ? fillTemplate(M.harmonics, { n: harmonics - 1 }) : '' }) ?? '' : '',
+    noise: noiseOn === false ? M.noiseOff : fillTemplate(M.noise, { noiseSource: describeNoiseSource(get('noise_correction.source', 'noise.source') ?? 'rest'),
+      noiseWindow: fmt(get('noise_window_s', 'noise_correction.window_s', 'noise.window_s')) ?? L.notRecorded }) ?? M.noiseOff,
+    normalization: normText ? (fillTemplate(normText, { refWindow }) ?? L.notRecorded) : L.notRecorded,
   };
   const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.methods }];
   blocks.push({ type: 'paragraph', text: fillRequired(M.pipeline, vars) + ' ' + M.sameChain });
   if (noiseOn !== false) cite('rds2019');
   cite('mathiassen1995');
   const pcts = (get('percentiles', 'apdf.percentiles') as number[] | undefined) ?? [10, 50, 90];
-  blocks.push({ type: 'paragraph', text: fillRequired(M.percentiles, { percentiles: pcts.map((p) => `${formatNumber(p, 0)}th`).join(', ') + ' (static, median and peak load for 10th, 50th, 90th)' }) });
+  blocks.push({ type: 'paragraph', text: fillRequired(M.percentiles, { percentiles: pcts.map((p) => `${formatSetting(p)}th`).join(', ') }) });
   cite('hyndman1996');
-  const gapUnit = String(get('gaps.threshold_unit', 'gap.threshold_unit') ?? results.rows[0]?.unit ?? '');
-  const gapText = fillTemplate(M.gaps, { gapThreshold: fmt(get('gaps.threshold', 'gap.threshold') ?? results.rows[0]?.gap_threshold), gapUnit, gapMin: fmt(get('gaps.min_duration_s', 'gap.min_duration_s')) });
+  const gapUnit = String(get('gap_threshold.unit', 'gaps.threshold_unit', 'gap.threshold_unit') ?? results.rows[0]?.unit ?? '');
+  const gapMax = get('gap_max_s', 'gaps.max_duration_s');
+  const restCounts = get('rest_counts');
+  const gapText = fillTemplate(M.gaps, {
+    gapThreshold: fmt(get('gap_threshold.value', 'gap_threshold_pct', 'gaps.threshold', 'gap.threshold') ?? results.rows[0]?.gap_threshold), gapUnit,
+    gapMin: fmt(get('gap_min_s', 'gaps.min_duration_s', 'gap.min_duration_s')),
+    gapMax: typeof gapMax === 'number' ? fillTemplate(M.gapMax, { gapMax: fmt(gapMax) }) : '',
+    restCounts: restCounts === 'gaps-only' ? M.restGapsOnly : M.restAll,
+  });
   if (gapText) { blocks.push({ type: 'paragraph', text: gapText }); cite('veiersted1990', 'hansson2000'); }
-  const sus = fillTemplate(M.sustained, { sustainedThreshold: fmt(get('sustained.threshold')), gapUnit, sustainedMin: fmt(get('sustained.min_duration_s')) });
+  const note = get('gap_threshold.note');
+  if (typeof note === 'string' && note) blocks.push({ type: 'paragraph', text: note });
+  const sus = fillTemplate(M.sustained, { sustainedMin: fmt(get('sustained_min_s', 'sustained.min_duration_s')) });
   if (sus) blocks.push({ type: 'paragraph', text: sus });
   const ampEdges = (get('eva.amplitude_edges') as number[] | undefined) ?? results.eva[0]?.amplitude_edges;
   const durEdges = (get('eva.duration_edges_s') as number[] | undefined) ?? results.eva[0]?.duration_edges_s;
-  if (ampEdges && durEdges) blocks.push({ type: 'paragraph', text: fillRequired(M.eva, { ampEdges: ampEdges.map((x) => formatNumber(x, x % 1 ? 1 : 0)).join(', '), durEdges: durEdges.map((x) => formatNumber(x, x % 1 ? 1 : 0)).join(', '), unit: results.eva[0]?.unit ?? gapUnit }) });
+  if (ampEdges && durEdges) blocks.push({ type: 'paragraph', text: fillRequired(M.eva, { ampEdges: ampEdges.map(formatSetting).join(', '), durEdges: durEdges.map(formatSetting).join(', '), unit: results.eva[0]?.unit ?? gapUnit }) });
   blocks.push({ type: 'paragraph', text: fillRequired(M.unit, { units: ordered(results.rows.map((r) => r.unit)).join(', ') || L.none }) });
   blocks.push({ type: 'caution', title: t.headings.cautions, items: [M.mvcSafety, ...texts.cautions.slice(0, 3)] });
+  const refs = results.references ?? [];
+  if (refs.length) {
+    blocks.push({ type: 'heading', level: 2, text: t.headings.referenceValues }, { type: 'paragraph', text: M.referencesIntro, small: true });
+    const anyMve = refs.some((r) => r.mve_uv !== null && r.mve_uv !== undefined);
+    const cols: TableColumn[] = [{ label: L.worker, width: 0.6 }, { label: L.condition, width: 1.1 }, { label: L.muscle, width: 1.5 }, { label: L.method, width: 0.7 },
+      { label: L.referenceUv, width: 0.8, align: 'right' }, { label: L.noiseUv, width: 0.7, align: 'right' }];
+    if (anyMve) cols.push({ label: L.mveUv, width: 0.7, align: 'right' });
+    blocks.push({ type: 'table', small: true, columns: cols, rows: refs.map((r) => {
+      const row = [r.worker, r.condition, r.muscle, r.method, formatNumber(r.reference_uv), formatNumber(r.noise_uv)];
+      if (anyMve) row.push(formatNumber(r.mve_uv));
+      return row;
+    }) });
+  }
   blocks.push({ type: 'heading', level: 2, text: t.headings.settings });
-  blocks.push({ type: 'table', small: true, columns: [{ label: L.setting, width: 1 }, { label: L.value, width: 2 }], rows: flattenSettings(s) });
+  const described = new Map(SETTINGS_TABLE.map((d) => [d.key, d]));
+  blocks.push({ type: 'table', small: true, columns: [{ label: L.setting, width: 1.1 }, { label: L.value, width: 1.2 }, { label: L.unit, width: 0.45 }, { label: L.meaning, width: 2.6 }],
+    rows: flattenSettings(s).map(([k, v]) => [k, v, described.get(k)?.unit ?? '', described.get(k)?.meaning ?? '']) });
   return blocks;
 }
 
@@ -380,12 +446,17 @@ function accountingBlocks(results: StudyResults, texts: ReportTexts, workers: st
   blocks.push({ type: 'table', small: true, columns: [
     { label: L.worker, width: 0.6 }, { label: L.condition, width: 1.1 }, { label: L.muscle, width: 1.5 }, { label: L.recorded, width: 0.8, align: 'right' },
     { label: L.valid, width: 0.7, align: 'right' }, { label: L.excluded, width: 0.8, align: 'right' }, { label: L.why, width: 1.3 },
-  ], rows: all.map((r) => [r.worker, r.condition, r.muscle, formatMinutes(r.end_s - r.start_s), formatMinutes(r.valid_s), formatMinutes(Math.max(0, r.end_s - r.start_s - r.valid_s)), why(r)]) });
+  ], rows: all.map((r) => [r.worker, r.condition, r.muscle, formatMinutes(rowSpan(r)), formatMinutes(r.valid_s), formatMinutes(Math.max(0, rowSpan(r) - r.valid_s)), why(r)]) });
   blocks.push({ type: 'heading', level: 2, text: t.headings.findings });
   if (!results.findings.length) blocks.push({ type: 'paragraph', text: t.qualityNone });
   else blocks.push({ type: 'table', small: true, columns: [{ label: L.severity, width: 0.6 }, { label: L.where, width: 1.6 }, { label: L.message, width: 3 }],
     rows: results.findings.map((f) => [f.severity, whereText(f), `${f.code}: ${f.message}`]) });
   return blocks;
+}
+
+/** Time covered by a row's segments, s (segment_s when the analysis gives it, else end − start). */
+function rowSpan(r: ResultRow): number {
+  return typeof r.segment_s === 'number' && Number.isFinite(r.segment_s) ? r.segment_s : r.end_s - r.start_s;
 }
 
 function matches(f: Finding, r: ResultRow): boolean {
@@ -411,7 +482,7 @@ function reproBlocks(results: StudyResults, texts: ReportTexts): Block[] {
       [L.settingsHash, settingsHash(results.settings)],
       ['settings bytes', String(canonicalJson(results.settings).length)],
     ] },
-    { type: 'table', small: true, columns: [{ label: L.file, width: 1.6 }, { label: L.duration, width: 0.6, align: 'right' }, { label: L.sha256, width: 3.2 }],
+    { type: 'table', small: true, columns: [{ label: L.file, width: 1.2 }, { label: L.duration, width: 0.55, align: 'right' }, { label: L.sha256, width: 3.65 }],
       rows: results.inputs.map((i) => [i.file, formatHours(i.duration_s), i.sha256]) },
   ];
 }

@@ -1,5 +1,5 @@
 // Word wrapping with font metrics: greedy line filling at spaces; a word wider than the line is
-// broken between characters. Common practice, no single source.
+// broken after a hyphen if it has one, else between characters. Common practice, no single source.
 import type { Measure } from './charts/chart-marks.js';
 
 /**
@@ -18,6 +18,8 @@ export function wrapText(text: string, width: number, size: number, measure: Mea
       while (measure(word, size, bold) > width) {
         let n = word.length - 1;
         while (n > 1 && measure(word.slice(0, n), size, bold) > width) n--;
+        const hyphen = word.lastIndexOf('-', n - 1);
+        if (hyphen > 0) n = hyphen + 1; // prefer a break after a hyphen
         lines.push(word.slice(0, n));
         word = word.slice(n);
       }

@@ -20,7 +20,8 @@ export interface ReferenceDesign {
  */
 export function designReferenceEnvelope(ref: ReferenceSpec, rate_hz: number): ReferenceDesign {
   const trialLen = ref.ramp_s + ref.hold_s + ref.release_s;
-  const duration_s = ref.lead_s + ref.trials * (trialLen + ref.between_s);
+  // whole seconds (whole EDF records): the last rest is stretched to the next full second
+  const duration_s = Math.ceil(ref.lead_s + ref.trials * (trialLen + ref.between_s) - 1e-9);
   const n = secondsToSamples(duration_s, rate_hz) + 1;
   const values = new Float64Array(n);
   const trials: ReferenceDesign['trials'] = [];

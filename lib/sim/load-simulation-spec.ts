@@ -45,7 +45,12 @@ export function parseSimulationSpec(text: string, file: string): SimulationSpec 
   const muscles: MuscleSpec[] = r.list(doc, 'muscles', 'muscles').map((m, i) => {
     const p = `muscles[${i}]`;
     const o = r.obj(m, p);
-    return { id: r.str(o, 'id', p), signal: r.str(o, 'signal', p), muscle: r.str(o, 'muscle', p) };
+    const signal = r.str(o, 'signal', p);
+    // EDF label field: 16 printable ASCII characters
+    if (signal.length > 16 || !/^[\x20-\x7e]+$/.test(signal)) {
+      throw new InputError(simMsg.specField(file, `${p}.signal`, 'at most 16 printable ASCII characters (EDF label)', show(signal)), { file, where: `${p}.signal` });
+    }
+    return { id: r.str(o, 'id', p), signal, muscle: r.str(o, 'muscle', p) };
   });
   r.unique(muscles.map((m) => m.id), 'muscles');
   const muscleIds = muscles.map((m) => m.id);
@@ -95,7 +100,7 @@ export function parseSimulationSpec(text: string, file: string): SimulationSpec 
   for (const [name, v] of Object.entries(variantsObj)) {
     const o = r.obj(v, `variants.${name}`);
     variants[name] = {
-      duration_s: r.num(o, 'duration_s', `variants.${name}`, 10, 7 * 86400),
+      duration_s: r.int(o, 'duration_s', `variants.${name}`, 10, 7 * 86400), // whole seconds: whole EDF records
       cycle_scale: r.num(o, 'cycle_scale', `variants.${name}`, 0.01, 1000, SIM_DEFAULTS.variant.cycle_scale),
     };
   }
@@ -169,7 +174,7 @@ export function parseSimulationSpec(text: string, file: string): SimulationSpec 
     output_format: fmt,
     muscles,
     reference,
-    rest_duration_s: r.num(doc, 'rest_duration_s', '', 1, 3600, SIM_DEFAULTS.rest_duration_s),
+    rest_duration_s: r.int(doc, 'rest_duration_s', '', 1, 3600, SIM_DEFAULTS.rest_duration_s),
     conditions,
     variants,
     workers,

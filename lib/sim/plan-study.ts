@@ -2,6 +2,7 @@
 // condition for each worker) and the job file that analyses them. Pure: no files, no samples.
 import { Xoshiro128 } from '../stats/xoshiro128.js';
 import { InputError } from '../errors.js';
+import { secondsToSamples } from '../dsp/seconds-to-samples.js';
 import { simMsg } from '../messages.js';
 import { deriveSeed } from './derive-seed.js';
 import { designEnvelope, type PlannedSegment } from './design-envelope.js';
@@ -57,7 +58,7 @@ export function planStudy(spec: SimulationSpec, options: PlanOptions = {}): Stud
       annotations: ref.trials.map((t) => ({ onset_s: t.onset_s, duration_s: t.duration_s, text: t.text })),
     });
     // rest (noise floor only)
-    const restValues = new Float64Array(Math.round(spec.rest_duration_s * rate) + 1);
+    const restValues = new Float64Array(secondsToSamples(spec.rest_duration_s, rate) + 1);
     recordings.push({
       file: `${base}-rest.${format}`, kind: 'rest', worker: w.id, condition: null,
       sampling_rate_hz: fs, design_rate_hz: rate, duration_s: spec.rest_duration_s, start: spec.start,

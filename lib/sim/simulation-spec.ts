@@ -83,7 +83,7 @@ export interface ConditionSpec {
 }
 
 export interface VariantSpec {
-  /** Field recording duration, s. */
+  /** Field recording duration, whole s. */
   duration_s: number;
   /** Cycle step durations are multiplied by this. @default 1 */
   cycle_scale: number;
@@ -124,7 +124,7 @@ export interface SimulationSpec {
   output_format: 'edf' | 'csv';
   muscles: MuscleSpec[];
   reference: ReferenceSpec;
-  /** Duration of the rest (noise) recording, s. @default 60 */
+  /** Duration of the rest (noise) recording, whole s. @default 60 */
   rest_duration_s: number;
   conditions: ConditionSpec[];
   variants: Record<string, VariantSpec>;

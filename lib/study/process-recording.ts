@@ -3,6 +3,8 @@
 // transferable data, so the same function runs inline (--jobs 1) or on a worker thread.
 import type { OpenOptions } from '../io/open-options.js';
 import { readEnvelopes, type ChannelEnvelopes, type EnvelopeSpec, type FilterSpec } from './read-envelopes.js';
+import { fatigueTaps, spectralEpochBuffers, type FatigueTapSpec } from '../exposure/fatigue-taps.js';
+import type { SpectralEpochSeries } from '../exposure/spectral-epochs.js';
 
 export interface RecordingJob {
   file: string;
@@ -11,6 +13,8 @@ export interface RecordingJob {
   filter: FilterSpec;
   envelope: EnvelopeSpec;
   second?: EnvelopeSpec;
+  /** Spectral epochs for the fatigue analysis; absent/null = off. */
+  fatigue?: FatigueTapSpec | null;
 }
 
 export interface RecordingJobResult {
@@ -18,6 +22,8 @@ export interface RecordingJobResult {
   start_s: number;
   end_s: number;
   discontinuities: number;
+  /** Spectral epochs per channel (same order), or null when the fatigue analysis is off. */
+  epochs: SpectralEpochSeries[] | null;
 }
 
 /**
@@ -25,11 +31,15 @@ export interface RecordingJobResult {
  * @param onProgress seconds of the recording read so far
  */
 export async function processRecording(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
+  const taps = fatigueTaps(job.fatigue);
   const res = await readEnvelopes({
     file: job.file, signals: job.signals, start_s: 0, end_s: null, filter: job.filter,
-    envelope: job.envelope, second: job.second, open: job.open, onProgress,
+    envelope: job.envelope, second: job.second, open: job.open, onProgress, taps: taps ?? undefined,
   });
-  return { channels: res.channels, start_s: res.start_s, end_s: res.end_s, discontinuities: res.discontinuities };
+  return {
+    channels: res.channels, start_s: res.start_s, end_s: res.end_s, discontinuities: res.discontinuities,
+    epochs: taps ? taps.map((t) => t.result()) : null,
+  };
 }
 
 /** The ArrayBuffers of a result, to transfer (not copy) them between threads. */
@@ -39,5 +49,6 @@ export function transferablesOf(r: RecordingJobResult): ArrayBuffer[] {
     out.push(c.envelope.buffer as ArrayBuffer);
     if (c.second) out.push(c.second.buffer as ArrayBuffer);
   }
+  out.push(...spectralEpochBuffers(r.epochs));
   return out;
 }

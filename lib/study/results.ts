@@ -182,6 +182,24 @@ export interface Comparison {
   descriptive_only: boolean;
   /** One plain-language sentence that never overclaims. */
   statement: string;
+  /** Planning aid (paired comparisons with ≥ 2 differences); see lib/study/plan-comparisons.ts. */
+  planning?: ComparisonPlanning;
+}
+
+/** What this design could detect, and the workers needed for a named difference. */
+export interface ComparisonPlanning {
+  /** Sample SD of the per-worker differences, in the comparison's unit. */
+  sd_of_differences: number;
+  n: number;
+  /** Smallest mean difference detectable with n workers at alpha and power. */
+  detectable_difference: number;
+  alpha: number;
+  power: number;
+  /** The difference the user asked about (--detect), or null. */
+  detect: number | null;
+  /** Workers needed to detect it, or null. */
+  workers_needed: number | null;
+  method: string;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -223,4 +241,95 @@ export interface StudyResults {
   created?: string;
   /** Mean spectra per worker × condition × muscle; the report draws them when present. */
   spectra?: SpectrumResult[];
+}
+
+// ---------------------------------------------------------------------------------------------
+// Fatigue over the shift: spectral trends and JASA (added by the fatigue helper; all additive).
+// ---------------------------------------------------------------------------------------------
+
+/** JASA category of a block (lib/exposure/jasa.ts), or why there is none. */
+export type FatigueCategory = 'force-increase' | 'force-decrease' | 'fatigue' | 'recovery' | 'no-clear-change' | 'insufficient-data';
+
+/**
+ * Trends of amplitude and mean power frequency (MNF) in one time block or task segment of one
+ * worker × recording × muscle, and their JASA category (lib/exposure/fatigue-blocks.ts).
+ * Numbers are null where they could not be computed (too few active epochs, no reference).
+ */
+export interface FatigueBlock {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  /** Task segment label for a segment block; null for a time block. */
+  segment: string | null;
+  /** Window, s from the recording start (epochs whose centre lies in [start_s, end_s)). */
+  start_s: number;
+  end_s: number;
+  /** Active epochs used for the trends. */
+  epochs: number;
+  /** All whole epochs in the window. */
+  epochs_total: number;
+  /** Unit of the amplitude values (the study's load unit). */
+  amplitude_unit: LoadUnit;
+  /** Unit of the amplitude slope, e.g. "%MVE/min". */
+  amplitude_slope_unit: string;
+  amplitude_mean: number | null;
+  amplitude_slope_per_min: number | null;
+  amplitude_ci_low: number | null;
+  amplitude_ci_high: number | null;
+  mnf_mean_hz: number | null;
+  mnf_slope_hz_per_min: number | null;
+  mnf_ci_low: number | null;
+  mnf_ci_high: number | null;
+  /** Median frequency: mean and slope (no interval; MNF decides the category). */
+  mdf_mean_hz: number | null;
+  mdf_slope_hz_per_min: number | null;
+  category: FatigueCategory;
+  /** Confidence level of the intervals, as a fraction (0.95). */
+  ci_level: number;
+  /** The rule that made an epoch active, in words with the numbers used. */
+  active_rule: string;
+}
+
+/**
+ * MNF and amplitude over a whole recording of one channel, for the report chart: medians of the
+ * active epochs per step (null where a step has fewer than 5 active epochs). Point k covers
+ * [k·step_s, (k+1)·step_s) s from the recording start.
+ */
+export interface FatigueSeries {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  step_s: number;
+  amplitude_unit: LoadUnit;
+  mnf_hz: (number | null)[];
+  mdf_hz: (number | null)[];
+  amplitude: (number | null)[];
+  active_epochs: number[];
+  segments: { label: string; start_s: number; end_s: number }[];
+}
+
+/** How the spectral epochs were made (one per study; printed in the methods section). */
+export interface FatigueMethod {
+  epoch_s: number;
+  block_s: number;
+  band_hz: [number, number];
+  active_threshold_pct: number;
+  active_noise_factor: number;
+  min_epochs: number;
+  ci_level: number;
+  /** Plain-words description of epochs, spectra and trend fitting. */
+  description: string;
+}
+
+export interface StudyResults {
+  /** Trend blocks per worker × recording × muscle (time blocks and task segments); absent when not run. */
+  fatigue?: FatigueBlock[];
+  /** MNF-over-time series per recording × muscle for the report chart. */
+  fatigue_series?: FatigueSeries[];
+  /** Settings and wording of the fatigue analysis. */
+  fatigue_method?: FatigueMethod;
 }

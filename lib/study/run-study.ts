@@ -18,6 +18,12 @@ import { decimateTrace } from './decimate-trace.js';
 import type { RecordingJob, RecordingJobResult } from './process-recording.js';
 import { readEnvelopes, type FilterSpec } from './read-envelopes.js';
 import { RecordingPool } from './worker-pool.js';
+import { fatigueBlocks } from '../exposure/fatigue-blocks.js';
+import { fatigueMethod } from '../exposure/fatigue-method.js';
+import { resolveFatigueSettings } from '../exposure/fatigue-settings.js';
+import { fatigueTapSpec } from '../exposure/fatigue-taps.js';
+import type { SpectralEpochSeries } from '../exposure/spectral-epochs.js';
+import type { FatigueBlock, FatigueSeries } from './results.js';
 import type { EvaMatrix, EnvelopeTrace, Finding, LoadUnit, ReferenceValue, ResultRow, StudyResults } from './results.js';
 
 export interface RunStudyOptions {
@@ -50,6 +56,8 @@ interface PendingChannel {
   peakEnv: Float64Array | null;
   clipped: number;
   samples: number;
+  /** Spectral epochs of the fatigue analysis (null when it is off). */
+  epochs: SpectralEpochSeries | null;
 }
 
 /** Seconds of margin read around reference and rest spans, so filter start-up stays outside. */
@@ -117,11 +125,16 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   // cheap next to filtering). Inline, each recording is read when its turn comes.
   const jobs = Math.max(1, Math.floor(options.jobs ?? 1));
   const pool = new RecordingPool(jobs > 1 ? jobs : 0);
+  const fatigueSettings = resolveFatigueSettings(s.fatigue);
+  const fatigue: FatigueBlock[] = [];
+  const fatigueSeries: FatigueSeries[] = [];
+  const fatigueRates = new Set<number>();
   const recordingJob = (rec: StudyRecording, channels: number[]): RecordingJob => ({
     file: rec.file, signals: channels.map((c) => rec.channels[c]!.signalIndex), filter,
     envelope: { window_s: s.rms_window_s, rate_hz: rate },
     second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
     open: openOptions(rec.rate_hz),
+    fatigue: fatigueTapSpec(channels.map((c) => rec.channels[c]!), fatigueSettings, s.band_hz),
   });
   const queued = new Map<string, Promise<RecordingJobResult>>();
   if (jobs > 1) {
@@ -182,7 +195,8 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           const lv = levels.get(`${rec.id}\u0000${c}`)!;
           const env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
           const peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);
-          pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples });
+          pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples, epochs: res.epochs?.[c] ?? null });
+          if (res.epochs) fatigueRates.add(chRes.fs);
         });
       }
 
@@ -221,6 +235,15 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           findings.push({ severity: 'error', code: 'no-reference', where, message: findingText.noReference(ch.signal, s.normalize) });
         }
         const env = !normalizing ? p.env : lv.reference_uv === null ? p.env.map(() => NaN) : normalizeEnvelope(p.env, lv.reference_uv);
+
+        if (p.epochs) {
+          const f = fatigueBlocks(p.epochs, {
+            worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten,
+            duration_s: rec.duration_s, unit, reference_uv: normalizing ? lv.reference_uv : null, noise_uv: lv.noise_uv, segments: rec.segments,
+          }, fatigueSettings);
+          fatigue.push(...f.blocks);
+          fatigueSeries.push(f.series);
+        }
 
         // The gap threshold in the envelope's unit.
         let threshold = study.gapThreshold.value;
@@ -346,6 +369,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     apdf,
     references,
     findings,
+    ...(fatigueSettings.enabled ? { fatigue, fatigue_series: fatigueSeries, fatigue_method: fatigueMethod(fatigueSettings, s.band_hz, [...fatigueRates].sort((a, b) => a - b)) } : {}),
   };
 }
 
@@ -428,5 +452,10 @@ export function channelGroups(n: number, k: number): number[][] {
 function mergeGroups(parts: RecordingJobResult[], groups: number[][]): RecordingJobResult {
   const channels: RecordingJobResult['channels'] = [];
   parts.forEach((r, i) => groups[i]!.forEach((c, j) => { channels[c] = r.channels[j]!; }));
-  return { channels, start_s: parts[0]!.start_s, end_s: parts[0]!.end_s, discontinuities: parts[0]!.discontinuities };
+  let epochs: RecordingJobResult['epochs'] = null;
+  if (parts.every((r) => r.epochs !== null)) {
+    epochs = [];
+    parts.forEach((r, i) => groups[i]!.forEach((c, j) => { epochs![c] = r.epochs![j]!; }));
+  }
+  return { channels, start_s: parts[0]!.start_s, end_s: parts[0]!.end_s, discontinuities: parts[0]!.discontinuities, epochs };
 }

@@ -159,3 +159,59 @@ describe('shiftload convert FILE --format csv|edf', () => {
     expect(cols[0][1]).toBeCloseTo(2 / f.truth.signals[0].sample_rate_hz, 12);
   });
 });
+
+describe('shiftload convert --band / --envelope (processing stage)', () => {
+  const src = new URL('../../../shared/fixtures/edf/emg_3sig.edf', import.meta.url).pathname;
+
+  async function readSignal(label: string): Promise<{ x: Float64Array; fs: number }> {
+    const { openRecording } = await import('../../lib/io/open-recording.js');
+    const rec = await openRecording(src);
+    const s = rec.info.signals.find((q) => q.label === label)!;
+    const parts: number[] = [];
+    for await (const c of rec.read({ signals: [s.index] })) parts.push(...c.data[0]!);
+    await rec.close();
+    return { x: Float64Array.from(parts), fs: s.rate_hz };
+  }
+
+  function csvColumn(text: string): Float64Array {
+    return Float64Array.from(text.trim().split('\n').slice(1).map((l) => Number(l.split(',')[1])));
+  }
+
+  it('--band writes the zero-phase band-passed signal (= whole-signal sosfiltfilt within 1e-9 of full scale)', async () => {
+    const { sosfiltfilt } = await import('../../lib/dsp/sosfiltfilt.js');
+    const { butter } = await import('../../lib/dsp/butter.js');
+    const dir = mkdtempSync(join(tmpdir(), 'shiftload-convert-band-'));
+    const out = join(dir, 'f.csv');
+    const io = bufferIO();
+    expect(await main(['convert', src, '--format', 'csv', '--signals', 'EMG R trapezius', '--band', '20,200', '-o', out], io)).toBe(0);
+    const { x, fs } = await readSignal('EMG R trapezius');
+    const want = sosfiltfilt(butter(4, [20, 200], { btype: 'bandpass', fs }), x);
+    const got = csvColumn(readFileSync(out, 'utf8'));
+    expect(got.length).toBe(x.length);
+    const scale = Math.max(...x.map(Math.abs));
+    for (let i = 0; i < got.length; i++) expect(Math.abs(got[i]! - want[i]!)).toBeLessThan(1e-9 * scale);
+  });
+
+  it('--envelope writes the RMS envelope of the filtered signal at --envelope-rate', async () => {
+    const { sosfiltfilt } = await import('../../lib/dsp/sosfiltfilt.js');
+    const { butter } = await import('../../lib/dsp/butter.js');
+    const { rmsEnvelope } = await import('../../lib/dsp/rms-envelope.js');
+    const dir = mkdtempSync(join(tmpdir(), 'shiftload-convert-env-'));
+    const out = join(dir, 'e.csv');
+    const io = bufferIO();
+    expect(await main(['convert', src, '--format', 'csv', '--signals', 'EMG R forearm', '--band', '20,200', '--envelope', '0.1', '--envelope-rate', '20', '-o', out], io)).toBe(0);
+    const { x, fs } = await readSignal('EMG R forearm');
+    const want = rmsEnvelope(sosfiltfilt(butter(4, [20, 200], { btype: 'bandpass', fs }), x), { fs, window_s: 0.1, rate_hz: 20 });
+    const text = readFileSync(out, 'utf8');
+    const got = csvColumn(text);
+    expect(got.length).toBe(want.length);
+    for (let i = 0; i < got.length; i++) expect(Math.abs(got[i]! - want[i]!)).toBeLessThan(1e-9 * Math.max(...want));
+    expect(text.split('\n')[2]!.startsWith('0.05')).toBe(true); // second envelope sample at 1/20 s
+  });
+
+  it('--notch without --band is a usage error (exit 2)', async () => {
+    const io = bufferIO();
+    expect(await main(['convert', src, '--format', 'csv', '--notch', '50', '--envelope', '0.1'], io)).toBe(2);
+    expect(io.stderr.trim().split('\n')).toHaveLength(1);
+  });
+});

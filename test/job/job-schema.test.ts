@@ -31,8 +31,8 @@ describe('jobSchema', () => {
   it('every setting in DEFAULTS has a schema property whose default is the DEFAULTS value', () => {
     const settings = (jobSchema.properties.settings as unknown as Node).properties!;
     for (const [k, v] of Object.entries(DEFAULTS)) {
-      if (k === 'eva') {
-        for (const [ek, ev] of Object.entries(v as object)) expect(settings.eva.properties![ek].default, `eva.${ek}`).toEqual(ev);
+      if (k === 'eva' || k === 'fatigue') {
+        for (const [ek, ev] of Object.entries(v as object)) expect(settings[k].properties![ek].default, `${k}.${ek}`).toEqual(ev);
       } else {
         expect(settings[k]?.default, k).toEqual(v);
       }
@@ -41,10 +41,11 @@ describe('jobSchema', () => {
   });
 
   it('SETTINGS_TABLE describes every setting once, with the DEFAULTS value', () => {
-    const leafKeys = Object.entries(DEFAULTS).flatMap(([k, v]) => (k === 'eva' ? Object.keys(v as object).map((e) => `eva.${e}`) : [k]));
+    const leafKeys = Object.entries(DEFAULTS).flatMap(([k, v]) => (k === 'eva' || k === 'fatigue' ? Object.keys(v as object).map((e) => `${k}.${e}`) : [k]));
     expect(SETTINGS_TABLE.map((r) => r.key).sort()).toEqual(leafKeys.sort());
     for (const row of SETTINGS_TABLE) {
-      const v = row.key.startsWith('eva.') ? (DEFAULTS.eva as Record<string, unknown>)[row.key.slice(4)] : (DEFAULTS as unknown as Record<string, unknown>)[row.key];
+      const [head, leaf] = row.key.split('.');
+      const v = leaf !== undefined ? ((DEFAULTS as unknown as Record<string, Record<string, unknown>>)[head!]!)[leaf] : (DEFAULTS as unknown as Record<string, unknown>)[row.key];
       expect(row.value, row.key).toEqual(v);
       expect(row.meaning.length, row.key).toBeGreaterThan(10);
     }

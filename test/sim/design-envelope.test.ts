@@ -74,3 +74,23 @@ describe('designEnvelope(segments, duration_s, rate_hz, rng)', () => {
     expect(env.gaps[0].length).toBe(1);
   });
 });
+
+describe('designReferenceEnvelope(ref, rate_hz)', () => {
+  it('ramps to the hold level, holds it, releases, and lasts whole seconds', async () => {
+    const { designReferenceEnvelope } = await import('../../lib/sim/design-reference-envelope.js');
+    const ref = { ...SIM_DEFAULTS.reference, ramp_s: 1.5 };
+    const d = designReferenceEnvelope(ref, 20);
+    // 5 + 3 · (1.5 + 5 + 1 + 15) = 72.5 s → 73 s
+    expect(d.duration_s).toBe(73);
+    expect(d.trials.map((t) => t.text)).toEqual(['MVC 1', 'MVC 2', 'MVC 3']);
+    const t1 = d.trials[1];
+    expect(t1.onset_s).toBe(5 + 22.5);
+    const at = (t: number) => d.values[Math.round(t * 20)];
+    expect(at(t1.onset_s)).toBe(0);
+    expect(at(t1.onset_s + 0.75)).toBeCloseTo(50, 12);
+    expect(at(t1.hold_start_s + 2)).toBe(100);
+    expect(at(t1.hold_end_s + 0.5)).toBeCloseTo(50, 12);
+    expect(at(t1.onset_s + t1.duration_s + 1)).toBe(0);
+    expect(at(2)).toBe(0);
+  });
+});

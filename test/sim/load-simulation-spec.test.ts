@@ -26,6 +26,7 @@ describe('parseSimulationSpec(text, file)', () => {
     expect(errorOf(TINY_SPEC.replace('b: { level_pct: 18, spread_pct: 5 }', 'c: { level_pct: 18 }'))).toBe('sim.yaml: conditions[1].tasks.work.b: expected a task design for every muscle, got nothing');
     expect(errorOf(TINY_SPEC.replace('noise_band_hz: [20, 200]', 'noise_band_hz: [20, 300]'))).toBe('sim.yaml: noise_band_hz: expected an upper edge below the Nyquist frequency 250 Hz, got 300');
     expect(errorOf(TINY_SPEC.replace('dropout:', 'dropouts:'))).toMatch(/^sim\.yaml: workers\[1\]\.artifacts\.c1\.a\.dropouts: unknown artifact "dropouts"/);
+    expect(errorOf(TINY_SPEC.replace('signal: "EMG A"', 'signal: "EMG right forearm ext"'))).toBe('sim.yaml: muscles[0].signal: expected at most 16 printable ASCII characters (EDF label), got "EMG right forearm ext"');
     expect(errorOf('format: [')).toMatch(/^sim\.yaml: line 1: not valid YAML/);
   });
 

@@ -12,7 +12,7 @@ export interface ApdfLabels { load: string; probability: string; static: string;
  * Chart model for APDF curves. `levels[q]` is the load at q % (q = 0…100). The load axis ends at the
  * largest 98th-percentile level so that the 10/50/90 % region stays readable; curves stop there.
  */
-export function apdfChart(id: string, curves: ApdfCurve[], unit: LoadUnit, caption: string, labels: ApdfLabels, segmentOrder: string[], width = 236, height = 170): ChartModel {
+export function apdfChart(id: string, curves: ApdfCurve[], unit: LoadUnit, caption: string, labels: ApdfLabels, segmentOrder: string[], width = 236, height = 155): ChartModel {
   const hi = Math.max(1, ...curves.map((c) => c.levels[Math.min(98, c.levels.length - 1)] ?? 0));
   const x = niceAxis(`${labels.load} (${unit})`, 0, hi, 5);
   const y = niceAxis(labels.probability, 0, 100, 5);

@@ -26,7 +26,16 @@ export function chartMarks(chart: ChartModel, measure: Measure): { marks: Mark[]
   const marks: Mark[] = [];
   const yTickW = Math.max(0, ...chart.y.ticks.map((t) => measure(t.label, TICK)));
   const endW = Math.max(0, ...chart.series.map((s) => (s.kind === 'line' && s.endLabel ? measure(s.endLabel, SMALL) + 4 : 0)));
-  const legendH = chart.legend.length ? 13 : 0;
+  // legend items flow in rows across the chart width
+  const legendPos: { x: number; row: number }[] = [];
+  let lx0 = 4 + LABEL + 4 + yTickW + 4, row = 0;
+  for (const item of chart.legend) {
+    const w = 19 + measure(item.label, 7) + 10;
+    if (legendPos.length && lx0 + w - 10 > chart.width) { row++; lx0 = 4 + LABEL + 4 + yTickW + 4; }
+    legendPos.push({ x: lx0, row });
+    lx0 += w;
+  }
+  const legendH = chart.legend.length ? 13 + row * 11 : 0;
   const bandH = chart.bands.length ? 10 : 0;
   const plot: PlotArea = { x: 4 + LABEL + 4 + yTickW + 4, y: legendH + bandH + 4, w: 0, h: 0 };
   plot.w = chart.width - plot.x - Math.max(8, endW);
@@ -103,6 +112,8 @@ export function chartMarks(chart: ChartModel, measure: Measure): { marks: Mark[]
   for (const l of chart.refLines) {
     const y = r(sy(l.y));
     marks.push({ k: 'path', pts: [r(plot.x), y, r(plot.x + plot.w), y], stroke: MUTED, width: 0.5, dash: l.dash });
+    const lw = measure(l.label, SMALL);
+    marks.push({ ...rect(plot.x + plot.w - 3 - lw, y - 2 - SMALL * 0.85, lw + 2, SMALL * 1.05, [1, 1, 1]) }); // keeps the label readable over curves
     marks.push({ k: 'text', x: r(plot.x + plot.w - 2), y: r(y - 2), text: l.label, size: SMALL, anchor: 'end', color: MUTED });
   }
 
@@ -114,17 +125,16 @@ export function chartMarks(chart: ChartModel, measure: Measure): { marks: Mark[]
   marks.push({ k: 'text', x: r(4 + LABEL), y: r(plot.y + plot.h / 2), text: chart.y.label, size: LABEL, anchor: 'middle', up: true, color: INK });
 
   // legend along the top
-  let lx = plot.x;
-  for (const item of chart.legend) {
-    const y = 8;
+  chart.legend.forEach((item, i) => {
+    const lx = legendPos[i].x;
+    const y = 8 + legendPos[i].row * 11;
     if (item.swatch === 'line') marks.push({ k: 'path', pts: [r(lx), y - 2.5, r(lx + 16), y - 2.5], stroke: item.style.color, width: (item.style.width ?? 1) + 0.3, dash: item.style.dash });
     else if (item.swatch === 'box') {
       marks.push({ ...rect(lx + 2, y - 7, 9, 8, item.style.fill ?? item.style.color), stroke: item.style.color, width: 0.6 });
       marks.push(...patternMarks(item.style.pattern ?? 'none', lx + 2, y - 7, 9, 8, item.style.color));
     } else marks.push(markerMark(item.style.marker ?? 'circle', r(lx + 8), y - 3, 2.4, item.style));
     marks.push({ k: 'text', x: r(lx + 19), y, text: item.label, size: 7, anchor: 'start', color: INK });
-    lx += 19 + measure(item.label, 7) + 10;
-  }
+  });
   return { marks, plot };
 }
 
@@ -179,11 +189,8 @@ export function patternMarks(pattern: Pattern, x: number, y: number, w: number, 
     return out;
   }
   if (pattern === 'dots') {
-    const pts: number[] = [];
-    for (let yy = y + sp / 2; yy < y + h; yy += sp * 1.3) for (let xx = x + sp / 2; xx < x + w; xx += sp * 1.3) {
-      out.push({ k: 'path', pts: [r(xx - 0.3), r(yy - 0.3), r(xx + 0.3), r(yy - 0.3), r(xx + 0.3), r(yy + 0.3), r(xx - 0.3), r(yy + 0.3)], close: true, fill: color });
-    }
-    void pts;
+    // rows of round-capped dashes of length ~0: one path per row keeps the file small
+    for (let yy = y + sp / 2; yy < y + h; yy += sp * 1.3) out.push({ k: 'path', pts: [r(x), r(yy), r(x + w), r(yy)], stroke: color, width: 0.7, dash: [0.7, sp * 1.3 - 0.7] });
     return out;
   }
   // x + y = c (rising to the right on the page)

@@ -1,0 +1,179 @@
+// Spectral epochs: the filtered EMG cut into short, quasi-stationary epochs, each summarized by its
+// RMS amplitude and its mean and median power frequency. A ChannelTap of readEnvelopes, so it runs
+// in the one streaming pass over a recording and keeps only per-epoch summaries (an 8-h shift at
+// 1-s epochs is 28,800 epochs ≈ 0.9 MB per channel).
+import { cachedFft } from '../dsp/cached-fft.js';
+import { meanFrequency } from '../dsp/mean-frequency.js';
+import { medianFrequency } from '../dsp/median-frequency.js';
+import { checkSamplingRate } from '../dsp/butter.js';
+import { UsageError } from '../errors.js';
+import { fatigueMsg } from '../messages.js';
+import type { ChannelTap } from '../study/read-envelopes.js';
+import { GrowableFloat64 } from '../study/growable-float64.js';
+
+export interface SpectralEpochsOptions {
+  /** Sampling rate of the channel, Hz. */
+  fs: number;
+  /** Epoch length, s (0.5–1 s are quasi-stationary; METHODS.md §7). @default 1 */
+  epoch_s?: number;
+  /** Band [low, high] over which MNF and MDF are computed, Hz (inclusive bins). */
+  band_hz: readonly [number, number];
+  /** Time of the first sample pushed, s from the recording start (the read span's start). @default 0 */
+  start_s?: number;
+}
+
+/** Defaults of the spectral epochs. */
+export const SPECTRAL_EPOCH_DEFAULTS = {
+  /** Epoch length, s. METHODS.md §7: 0.5–1 s epochs are quasi-stationary (CEDE glossary, FOUND). */
+  epoch_s: 1,
+};
+
+/** Per-epoch summaries of one channel (all arrays have one value per whole epoch). */
+export interface SpectralEpochSeries {
+  /** Epoch centre, s from the recording start. */
+  t_s: Float64Array;
+  /** RMS of the filtered signal over the epoch, µV (not noise-corrected). */
+  rms_uv: Float64Array;
+  /** Mean power frequency over the band, Hz; NaN when the band holds no power or the epoch has NaN. */
+  mnf_hz: Float64Array;
+  /** Median frequency over the band (interpolated convention of medianFrequency), Hz. */
+  mdf_hz: Float64Array;
+  /** Epoch length actually used, s (whole samples: n / fs). */
+  epoch_s: number;
+  /** Samples per epoch. */
+  n: number;
+  /** FFT length (next power of two ≥ n; the windowed epoch is zero-padded). */
+  nfft: number;
+  fs: number;
+  band_hz: [number, number];
+}
+
+/**
+ * Streaming spectral epochs (a ChannelTap: feed it the filtered signal with `filtered(y)`, and
+ * `restart(offset_s)` at discontinuities). Epochs tile each continuous piece from its first
+ * sample: n = round(epoch_s·fs) samples each; the incomplete epoch at the end of a piece is
+ * dropped. Per epoch: RMS of the n samples; then the samples minus their mean, times a periodic
+ * Hann window of length n (0.5 − 0.5·cos(2πi/n)), zero-padded to nfft = next power of two ≥ n,
+ * one real FFT (cached fft.js instance), power |X_k|² on bins f_k = k·fs/nfft; MNF =
+ * meanFrequency and MDF = medianFrequency over bins inside band_hz. Zero-padding samples the same
+ * windowed periodogram more finely; it does not change the spectrum's shape. Any chunk split gives
+ * the same epochs as one push of the whole signal.
+ * @throws UsageError for a bad sampling rate, epoch shorter than 16 samples, or a band outside 0…fs/2
+ * @example const tap = new SpectralEpochs({ fs: 1000, band_hz: [30, 400] }); tap.filtered(y); tap.result();
+ * Source: MNF/MDF definitions, Phinyomark et al. 2012 (METHODS.md §7); epoch length, CEDE glossary.
+ */
+export class SpectralEpochs implements ChannelTap {
+  readonly fs: number;
+  readonly n: number;
+  readonly nfft: number;
+  readonly band_hz: [number, number];
+  private readonly startS: number;
+  private readonly window: Float64Array;
+  private readonly buf: Float64Array;
+  private readonly work: Float64Array;
+  private readonly spec: Float64Array;
+  private readonly freq: Float64Array;
+  private readonly power: Float64Array;
+  private fill = 0;
+  /** Offset of the current piece, s from the read start, and whole epochs done in it. */
+  private pieceOffsetS = 0;
+  private pieceEpochs = 0;
+  private readonly t = new GrowableFloat64(1024);
+  private readonly rms = new GrowableFloat64(1024);
+  private readonly mnf = new GrowableFloat64(1024);
+  private readonly mdf = new GrowableFloat64(1024);
+
+  constructor(options: SpectralEpochsOptions) {
+    checkSamplingRate(options.fs);
+    const epoch = options.epoch_s ?? SPECTRAL_EPOCH_DEFAULTS.epoch_s;
+    const n = Math.round(epoch * options.fs);
+    if (!(Number.isFinite(epoch) && n >= 16)) throw new UsageError(fatigueMsg.epochTooShort(epoch, options.fs));
+    const [lo, hi] = options.band_hz;
+    if (!(lo >= 0 && hi > lo && hi <= options.fs / 2)) throw new UsageError(fatigueMsg.band(lo, hi, options.fs));
+    this.fs = options.fs;
+    this.n = n;
+    let nfft = 16;
+    while (nfft < n) nfft *= 2;
+    this.nfft = nfft;
+    this.band_hz = [lo, hi];
+    this.startS = options.start_s ?? 0;
+    this.window = new Float64Array(n);
+    for (let i = 0; i < n; i++) this.window[i] = 0.5 - 0.5 * Math.cos((2 * Math.PI * i) / n);
+    this.buf = new Float64Array(n);
+    this.work = new Float64Array(nfft);
+    this.spec = new Float64Array(2 * nfft);
+    this.freq = new Float64Array(nfft / 2 + 1);
+    for (let k = 0; k <= nfft / 2; k++) this.freq[k] = (k * this.fs) / nfft;
+    this.power = new Float64Array(nfft / 2 + 1);
+  }
+
+  /** Feed filtered samples (µV) of the current continuous piece (not modified). */
+  filtered(y: Float64Array): void {
+    this.push(y);
+  }
+
+  /** Feed samples (batch use and tests; same as `filtered`). */
+  push(y: ArrayLike<number>): void {
+    const n = this.n, buf = this.buf;
+    let i = 0;
+    while (i < y.length) {
+      const m = Math.min(n - this.fill, y.length - i);
+      for (let j = 0; j < m; j++) buf[this.fill + j] = y[i + j]!;
+      this.fill += m;
+      i += m;
+      if (this.fill === n) {
+        this.epoch();
+        this.fill = 0;
+      }
+    }
+  }
+
+  /** A discontinuity: drop the incomplete epoch; the next piece starts at `offset_s` from the read start. */
+  restart(offset_s: number): void {
+    this.fill = 0;
+    this.pieceOffsetS = offset_s;
+    this.pieceEpochs = 0;
+  }
+
+  private epoch(): void {
+    const n = this.n, buf = this.buf, work = this.work, win = this.window, power = this.power;
+    let sum = 0, sum2 = 0;
+    for (let i = 0; i < n; i++) { const v = buf[i]!; sum += v; sum2 += v * v; }
+    const mean = sum / n;
+    for (let i = 0; i < n; i++) work[i] = (buf[i]! - mean) * win[i]!;
+    // work[n…nfft) stays 0 (zero padding); it is never written.
+    cachedFft(this.nfft).realTransform(this.spec, work);
+    const half = this.nfft / 2, spec = this.spec;
+    for (let k = 0; k <= half; k++) { const re = spec[2 * k]!, im = spec[2 * k + 1]!; power[k] = re * re + im * im; }
+    const range = { fminHz: this.band_hz[0], fmaxHz: this.band_hz[1] };
+    const finite = Number.isFinite(sum2);
+    this.t.fill(this.startS + this.pieceOffsetS + (this.pieceEpochs * n + n / 2) / this.fs, 1);
+    this.rms.fill(Math.sqrt(sum2 / n), 1);
+    this.mnf.fill(finite ? meanFrequency(this.freq, power, range) : NaN, 1);
+    this.mdf.fill(finite ? medianFrequency(this.freq, power, range) : NaN, 1);
+    this.pieceEpochs++;
+  }
+
+  /** Number of whole epochs so far. */
+  get epochs(): number {
+    return this.t.length;
+  }
+
+  /** The epochs so far (new arrays). */
+  result(): SpectralEpochSeries {
+    return {
+      t_s: this.t.toArray(), rms_uv: this.rms.toArray(), mnf_hz: this.mnf.toArray(), mdf_hz: this.mdf.toArray(),
+      epoch_s: this.n / this.fs, n: this.n, nfft: this.nfft, fs: this.fs, band_hz: [this.band_hz[0], this.band_hz[1]],
+    };
+  }
+}
+
+/**
+ * Spectral epochs of a whole (continuous) signal: batch form of SpectralEpochs.
+ * @example spectralEpochs(y, { fs: 1000, band_hz: [30, 400] }).mnf_hz
+ */
+export function spectralEpochs(y: ArrayLike<number>, options: SpectralEpochsOptions): SpectralEpochSeries {
+  const s = new SpectralEpochs(options);
+  s.push(y);
+  return s.result();
+}
