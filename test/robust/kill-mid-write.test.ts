@@ -13,7 +13,7 @@ import { main } from '../../lib/cli/main.js';
 import { ROBUST_FIXTURES_DIR, writeTinyRecording } from '../../lib/robust/seed-files.js';
 
 const bin = fileURLToPath(new URL('../../bin/shiftload.js', import.meta.url));
-const NAMES = ['results.json', 'segments.csv'];
+const NAMES = ['results.json', 'segments.csv', 'report.pdf'];
 const dir = mkdtempSync(join(tmpdir(), 'shiftload-kill-'));
 const out = join(dir, 'out');
 const job = join(dir, 'job.yaml');
@@ -29,7 +29,7 @@ function jobText(title: string): string {
 
 async function analyzeInProcess(o: string): Promise<void> {
   const io = bufferIO();
-  const code = await main(['analyze', job, '--no-report', '-o', o, '--force'], io);
+  const code = await main(['analyze', job, '-o', o, '--force'], io);
   if (code !== 0) throw new Error(io.stderr);
 }
 
@@ -58,7 +58,7 @@ function restorePrevious(): void {
  * yielding, so the child cannot finish in between); returns whether the kill came before the end.
  */
 async function killWhen(when: (entries: string[]) => boolean): Promise<{ killed: boolean; entries: string[] }> {
-  const child = spawn(process.execPath, [bin, 'analyze', job, '--no-report', '-o', out, '--force'], { stdio: 'ignore' });
+  const child = spawn(process.execPath, [bin, 'analyze', job, '-o', out, '--force'], { stdio: 'ignore' });
   const exited = new Promise<void>((res) => child.on('exit', () => res()));
   const finished = () => NAMES.every((f) => { try { return readFileSync(join(out, f)).equals(after.get(f)!); } catch { return false; } });
   const t0 = Date.now();
@@ -128,7 +128,7 @@ describe('output folder after a kill', () => {
     const stale = join(d, `.results.json.${(1 << 22) + 1}.tmp`);
     writeFileSync(stale, '{"half": ');
     const io = bufferIO();
-    const code = await main(['analyze', job, '--no-report', '-o', d], io);
+    const code = await main(['analyze', job, '-o', d], io);
     expect(code, io.stderr).toBe(0);
     expect(existsSync(stale)).toBe(false);
     expect(readFileSync(join(d, 'results.json')).equals(after.get('results.json')!)).toBe(true);
