@@ -250,6 +250,25 @@ describe('catalogue: job YAML (check)', () => {
   }
 });
 
+describe('catalogue: units of reference and rest files', () => {
+  it('a reference file in mV for a recording in µV exits 2 naming the signal, both files and units (was silently 1000× off)', async () => {
+    const d = caseDir();
+    const csv = join(d, 'tiny.csv');
+    expect((await run('convert', join(d, 'tiny.edf'), '--format', 'csv', '-o', csv)).code).toBe(0);
+    const text = readFileSync(csv, 'utf8');
+    writeFileSync(join(d, 'ref-mv.csv'), text.replace(/^.*\n/, 'time_s,EMG R [mV],EMG L [mV]\n'));
+    writeFileSync(join(d, 'ref-uv.csv'), text.replace(/^.*\n/, 'time_s,EMG R [\u00b5V],EMG L [UV]\n'));
+    const job = (ref: string) => readFileSync(join(d, 'tiny-job.yaml'), 'utf8').replace('- file: tiny.edf', '- file: tiny.csv')
+      .replace('reference: { file: tiny.edf, annotation: "reference contraction" }', `reference: { file: ${ref}, start_s: 1, end_s: 3 }`);
+    const p = join(d, 'units.yaml');
+    writeFileSync(p, job('ref-mv.csv'));
+    await refused(['check', p], p, /units\.yaml:\d+ workers\[0\]\.reference\.file: signal 'EMG R' is in mV in ref-mv\.csv but in uV in tiny\.csv/);
+    writeFileSync(p, job('ref-uv.csv')); // µV, UV and uV are one unit
+    const r = await run('check', p);
+    expect(r.code, r.err).toBe(0);
+  });
+});
+
 describe('catalogue: usable data gives findings, not errors (analyze --no-report)', () => {
   async function analyze(d: string, jobText?: string): Promise<StudyResults> {
     const p = join(d, 'tiny-job.yaml');
