@@ -240,7 +240,7 @@ export const findingText = {
   thresholdNotConverted: (signal: string) => `the %MVE gap threshold could not be converted to %RVE for ${signal} (no MVE reference); gap and rest figures are left empty`,
   clipping: (clipped: number, samples: number) => `${clipped} of ${samples} samples (${(100 * clipped / Math.max(1, samples)).toPrecision(2)} %) at the recorder's digital limits (clipping); amplitudes in those spans are underestimated`,
   segmentTooShort: (label: string, length: number, window: number) => `segment '${label}' lasts ${length.toPrecision(3)} s, shorter than the ${window} s RMS window; its figures rest on very few values`,
-  excludedTime: (label: string, excluded: number, length: number) => `${excluded.toFixed(1)} s of ${length.toFixed(1)} s in segment '${label}' had no valid data (missing or NaN samples) and were left out`,
+  excludedTime: (label: string, excluded: number, length: number) => `${excluded.toFixed(1)} s of ${length.toFixed(1)} s in segment '${label}' had no valid data (missing or NaN samples, or spans the quality screening judged unusable) and were left out`,
   referenceWeak: (signal: string, p90: number) => `${signal}: task values reach ${p90.toFixed(0)} %MVE (90th percentile above 100 %); the reference contraction was probably not maximal, so %MVE figures are overstated`,
   discontinuous: (n: number) => `the recording has ${n} interruption(s) (EDF+D); filters restart after each and the time between records counts as no data`,
 };
@@ -282,6 +282,7 @@ export const reportMsg = {
 export const fatigueMsg = {
   epochTooShort: (epochS: number, fs: number) => `spectral epoch must hold at least 16 samples (epoch_s × fs; fs=${fs} Hz), got epoch_s=${epochS}`,
   band: (lo: number, hi: number, fs: number) => `spectral band must satisfy 0 ≤ low < high ≤ fs/2 (fs=${fs} Hz → ${fs / 2} Hz), got [${lo}, ${hi}] Hz`,
+  spectrumBin: (binHz: number) => `mean-spectrum bin width must be a positive number of Hz, got ${binHz}`,
 };
 
 /** Texts written into the fatigue results (lib/exposure/fatigue-blocks.ts). */
@@ -297,6 +298,42 @@ export const fatigueText = {
     + `Over each ${blockS / 60}-min block and each task segment, amplitude and MNF are regressed on time (least squares, 95 % t intervals); `
     + 'a trend counts only when its interval excludes zero. JASA categories after Luttmann et al. 2000. '
     + 'The categories describe the EMG of the muscle, not an individual\'s fatigue state, injury risk or a diagnosis.',
+};
+
+// ---------------------------------------------------------------------------------------------
+// quality: signal-quality screening (lib/quality)
+// ---------------------------------------------------------------------------------------------
+
+/** Seconds as "12.0–15.0 s (0:00:12–0:00:15)". */
+function qSpan(t0: number, t1: number): string {
+  const clk = (s: number) => {
+    const t = Math.round(s);
+    return `${Math.floor(t / 3600)}:${String(Math.floor((t % 3600) / 60)).padStart(2, '0')}:${String(t % 60).padStart(2, '0')}`;
+  };
+  return `${t0.toFixed(1)}–${t1.toFixed(1)} s (${clk(t0)}–${clk(t1)})`;
+}
+const qDb = (ratio: number) => (ratio > 0 ? `${(10 * Math.log10(ratio)).toFixed(1)} dB` : '−∞ dB');
+const EXCLUDED = '; excluded from the statistics';
+
+/** Texts of the quality findings: each names the measured value and the limit used. */
+export const qualityMsg = {
+  clipped: (signal: string, t0: number, t1: number, count: number, samples: number, excluded: boolean, excludeShare: number) =>
+    `${signal}: ${count} of ${samples} samples (${(100 * count / Math.max(1, samples)).toPrecision(2)} %) at the recorder's digital limits in ${qSpan(t0, t1)}; amplitudes there are underestimated${excluded ? `${EXCLUDED} (limit: ${100 * excludeShare} % of a window)` : ` (exclusion from ${100 * excludeShare} % of a window)`}`,
+  flatLine: (signal: string, t0: number, t1: number, std: number, limit: number) =>
+    `${signal}: flat line in ${qSpan(t0, t1)}: raw standard deviation ${std.toPrecision(2)} µV, below the limit ${limit.toPrecision(2)} µV (electrode disconnected or recorder stalled)${EXCLUDED}`,
+  signalLost: (signal: string, t0: number, t1: number, rms: number, floor: number, fraction: number, source: 'rest' | 'estimated') =>
+    `${signal}: signal lost in ${qSpan(t0, t1)}: band-passed RMS ${rms.toPrecision(2)} µV, below ${fraction} × the noise floor ${floor.toPrecision(3)} µV (${source === 'rest' ? 'rest recording' : 'estimated from this recording'}); electrode off or cable loose${EXCLUDED}`,
+  mains: (signal: string, t0: number, t1: number, hz: number, ratio: number, limit: number, notched: boolean) =>
+    `${signal}: mains interference at ${hz} Hz in ${qSpan(t0, t1)}: hum power ${qDb(ratio)} relative to the EMG-band power (limit ${qDb(limit)})${notched ? '; the analysis notch removes it' : '; consider mains_hz in the job settings'}`,
+  motion: (signal: string, t0: number, t1: number, ratio: number, limit: number, relative: number, excluded: boolean, excludeRatio: number) =>
+    `${signal}: low-frequency artifact (movement, cable) in ${qSpan(t0, t1)}: power below the motion limit ${qDb(ratio)} relative to the EMG band (limit ${qDb(limit)}), ${relative.toFixed(0)} × the recording's usual level${excluded ? `${EXCLUDED} (limit ${qDb(excludeRatio)})` : ''}`,
+  ecg: (signal: string, t0: number, t1: number, bpm: number, r: number, limitR: number, highpassHz: number | null) =>
+    `${signal}: ECG-like spikes in ${qSpan(t0, t1)} at about ${bpm.toFixed(0)} beats/min (periodicity r = ${r.toFixed(2)}, limit ${limitR})${highpassHz !== null && highpassHz >= 30 ? `; the ${highpassHz} Hz high-pass reduces them, low-level values may still be raised` : '; a high-pass of 30 Hz or more reduces them (Drake & Callaghan 2006)'}`,
+  moreSpans: (signal: string, code: string, spans: number, seconds: number) =>
+    `${signal}: ${spans} further span(s) with '${code}', ${seconds.toFixed(1)} s in total (listed up to the max_spans limit)`,
+  lowSnr: (signal: string, snrDb: number, limitDb: number, task: number, noise: number) =>
+    `${signal}: low signal-to-noise ratio ${Number.isFinite(snrDb) ? snrDb.toFixed(1) : '−∞'} dB (limit ${limitDb} dB): task RMS ${task.toPrecision(3)} µV against a noise level of ${noise.toPrecision(3)} µV; low-level figures (rest, gaps, static load) are uncertain`,
+  settingRange: (key: string, range: string, got: unknown) => `quality.${key} must be ${range}, got ${JSON.stringify(got)}`,
 };
 
 // ---------------------------------------------------------------------------------------------

@@ -1,7 +1,7 @@
 // `shiftload analyze JOB [--out DIR]`: the whole study job — job file in, results.json,
 // segments.csv and report.pdf out.
-import { availableParallelism } from 'node:os';
 import { existsSync, rmSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { basename, dirname, extname, join, relative } from 'node:path';
 import type { CommandModule } from 'yargs';
 import { UsageError } from '../errors.js';
@@ -12,6 +12,7 @@ import { compareConditions } from '../study/compare-conditions.js';
 import { parseDetect, planComparisons, type DetectTargets } from '../study/plan-comparisons.js';
 import type { StudyResults } from '../study/results.js';
 import { runStudy } from '../study/run-study.js';
+import { stableJson } from '../study/stable-json.js';
 import { OUTPUT_NAMES, prepareOutputFolder, writeStudyOutputs } from '../study/write-study-outputs.js';
 import type { CliIO, WithIO } from './cli-io.js';
 import { ProgressBar } from './progress-bar.js';
@@ -72,14 +73,18 @@ export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: C
     bar.stop();
   }
   results.comparisons = planComparisons(compareConditions(results.rows, {}), options.detect);
-  // The report is rendered before anything is written, so a failing renderer leaves every previous
-  // output as it was; then all outputs are written under temporary names and renamed together.
+  // The report is drawn from results as written (numbers rounded in results.json), so that
+  // `shiftload report results.json` later gives the same bytes. It is rendered before anything is
+  // written, so a failing renderer leaves every previous output as it was; then all outputs are
+  // written under temporary names and renamed together.
+  const computed = results;
+  results = JSON.parse(stableJson(computed)) as StudyResults;
   let pdfBytes: Uint8Array | null = null;
   if (options.report !== false) {
     const { renderReport } = await import('../report/render-report.js');
     pdfBytes = await renderReport(results, { svgDir: options.svg ? join(outDir, 'charts') : undefined });
   }
-  const written = writeStudyOutputs(outDir, results, pdfBytes ?? undefined);
+  const written = writeStudyOutputs(outDir, computed, pdfBytes ?? undefined);
   const files = [written.results, written.rows, ...(written.report !== undefined ? [written.report] : [])];
   const pdf = join(outDir, OUTPUT_NAMES.report);
   const removed: string[] = [];

@@ -5,6 +5,8 @@ import type { CommandModule } from 'yargs';
 import type { WithIO } from './cli-io.js';
 import { openRecording, type OpenOptions } from '../io/open-recording.js';
 import type { Annotation, RecordingInfo } from '../io/recording.js';
+import { formatQuality } from '../quality/format-quality.js';
+import { screenRecording } from '../quality/screen-recording.js';
 
 export interface InspectSignal {
   index: number;
@@ -154,7 +156,7 @@ function clock(s: number): string {
   return `${h}:${String(m).padStart(2, '0')}:${String(sec).padStart(2, '0')}`;
 }
 
-interface InspectArgs extends WithIO { file: string; json: boolean; rate?: number; unit?: string }
+interface InspectArgs extends WithIO { file: string; json: boolean; rate?: number; unit?: string; quality: boolean }
 
 export const inspectCommand: CommandModule<object, InspectArgs> = {
   command: 'inspect <file>',
@@ -164,15 +166,19 @@ export const inspectCommand: CommandModule<object, InspectArgs> = {
     .option('json', { type: 'boolean', default: false, describe: 'print one JSON object instead of tables' })
     .option('rate', { type: 'number', describe: 'CSV/TSV without a time column: sampling rate in Hz' })
     .option('unit', { type: 'string', describe: 'CSV/TSV: unit of columns whose header gives none as "name [unit]" (default uV)' })
+    .option('quality', { type: 'boolean', default: false, describe: 'also screen signal quality (clipping, flat line, lost signal, mains, movement, ECG) in a second pass' })
     .example('$0 inspect worker07_shift.edf', 'signals, ranges, annotations and clipped samples as tables')
     .example('$0 inspect worker07_shift.edf --json', 'the same as one JSON object (for scripts)')
-    .example('$0 inspect export.csv --rate 2000', 'a CSV export without a time column, sampled at 2000 Hz') as never,
+    .example('$0 inspect export.csv --rate 2000', 'a CSV export without a time column, sampled at 2000 Hz')
+    .example('$0 inspect worker07_shift.edf --quality', 'add a quality table per signal and the quality findings with their times') as never,
   handler: async (argv) => {
     const r = await inspectRecording(argv.file, {
       ...(argv.rate !== undefined ? { rate_hz: argv.rate } : {}),
       ...(argv.unit !== undefined ? { unit: argv.unit } : {}),
     });
-    if (argv.json) argv.io.out(JSON.stringify(r, null, 2) + '\n');
-    else argv.io.out(formatInspect(r));
+    const open = { ...(argv.rate !== undefined ? { rate_hz: argv.rate } : {}), ...(argv.unit !== undefined ? { unit: argv.unit } : {}) };
+    const q = argv.quality ? await screenRecording(argv.file, { open }) : null;
+    if (argv.json) argv.io.out(JSON.stringify(q ? { ...r, quality: q } : r, null, 2) + '\n');
+    else argv.io.out(formatInspect(r) + (q ? '\n' + formatQuality(q) : ''));
   },
 };

@@ -41,6 +41,7 @@ export function fatigueTaps(spec: FatigueTapSpec | null | undefined): SpectralEp
 /** The ArrayBuffers of spectral epoch series, to transfer (not copy) them between threads. */
 export function spectralEpochBuffers(series: readonly SpectralEpochSeries[] | null | undefined): ArrayBuffer[] {
   const out: ArrayBuffer[] = [];
-  for (const e of series ?? []) out.push(e.t_s.buffer as ArrayBuffer, e.rms_uv.buffer as ArrayBuffer, e.mnf_hz.buffer as ArrayBuffer, e.mdf_hz.buffer as ArrayBuffer);
+  for (const e of series ?? []) out.push(e.t_s.buffer as ArrayBuffer, e.rms_uv.buffer as ArrayBuffer, e.mnf_hz.buffer as ArrayBuffer, e.mdf_hz.buffer as ArrayBuffer,
+    e.spectrum.f_hz.buffer as ArrayBuffer, e.spectrum.psd.buffer as ArrayBuffer);
   return out;
 }

@@ -20,13 +20,32 @@ export interface SpectralEpochsOptions {
   band_hz: readonly [number, number];
   /** Time of the first sample pushed, s from the recording start (the read span's start). @default 0 */
   start_s?: number;
+  /** Width of the bins of the mean raw spectrum, Hz (widened to the FFT resolution when coarser). @default 2 */
+  spectrum_bin_hz?: number;
 }
 
 /** Defaults of the spectral epochs. */
 export const SPECTRAL_EPOCH_DEFAULTS = {
   /** Epoch length, s. METHODS.md §7: 0.5–1 s epochs are quasi-stationary (CEDE glossary, FOUND). */
   epoch_s: 1,
+  /** Bin width of the mean raw spectrum, Hz: 2 Hz keeps results.json small (≤ 251 bins at 1000 Hz) and still resolves a mains line. */
+  spectrum_bin_hz: 2,
 };
+
+/**
+ * Mean power spectrum of the raw (unfiltered) signal over all whole epochs, on a coarse grid:
+ * bin j is centred on j·bin_hz (j = 0 … floor((fs/2)/bin_hz)) and averages the density of the
+ * epoch periodogram bins whose frequency lies in [j·bin_hz − bin_hz/2, j·bin_hz + bin_hz/2).
+ */
+export interface MeanSpectrum {
+  /** Bin centres, Hz (0, bin_hz, 2·bin_hz, …; equally spaced from 0). */
+  f_hz: Float64Array;
+  /** One-sided power spectral density, µV²/Hz (Welch scaling: |X|² / (fs·Σw²), doubled off DC/Nyquist). NaN when no epoch was seen. */
+  psd: Float64Array;
+  /** Epochs averaged (epochs holding NaN are left out). */
+  epochs: number;
+  bin_hz: number;
+}
 
 /** Per-epoch summaries of one channel (all arrays have one value per whole epoch). */
 export interface SpectralEpochSeries {
@@ -46,6 +65,8 @@ export interface SpectralEpochSeries {
   nfft: number;
   fs: number;
   band_hz: [number, number];
+  /** Mean raw spectrum over all whole epochs (see MeanSpectrum). */
+  spectrum: MeanSpectrum;
 }
 
 /**
@@ -58,6 +79,13 @@ export interface SpectralEpochSeries {
  * meanFrequency and MDF = medianFrequency over bins inside band_hz. Zero-padding samples the same
  * windowed periodogram more finely; it does not change the spectrum's shape. Any chunk split gives
  * the same epochs as one push of the whole signal.
+ *
+ * Alongside, the tap accumulates the mean power spectrum of the raw (unfiltered) samples (the
+ * `raw` hook of readEnvelopes), over all whole epochs of the same length and tiling, each with its
+ * mean removed and the same Hann window; no activity rule is applied (every epoch counts, rest
+ * included), so it shows what the band-pass and notch have to deal with. Raw rather than
+ * filtered: the filtered spectrum only mirrors the chosen band and notch, so a band suggested
+ * from it would confirm the settings rather than test them. Epochs holding NaN are left out.
  * @throws UsageError for a bad sampling rate, epoch shorter than 16 samples, or a band outside 0…fs/2
  * @example const tap = new SpectralEpochs({ fs: 1000, band_hz: [30, 400] }); tap.filtered(y); tap.result();
  * Source: MNF/MDF definitions, Phinyomark et al. 2012 (METHODS.md §7); epoch length, CEDE glossary.
@@ -82,6 +110,12 @@ export class SpectralEpochs implements ChannelTap {
   private readonly rms = new GrowableFloat64(1024);
   private readonly mnf = new GrowableFloat64(1024);
   private readonly mdf = new GrowableFloat64(1024);
+  /** Raw-spectrum accumulation: epoch buffer, fill, sum of |X|² per fine bin, epochs summed. */
+  private readonly rawBuf: Float64Array;
+  private rawFill = 0;
+  private readonly rawSum: Float64Array;
+  private rawEpochs = 0;
+  private readonly binHz: number;
 
   constructor(options: SpectralEpochsOptions) {
     checkSamplingRate(options.fs);
@@ -105,6 +139,65 @@ export class SpectralEpochs implements ChannelTap {
     this.freq = new Float64Array(nfft / 2 + 1);
     for (let k = 0; k <= nfft / 2; k++) this.freq[k] = (k * this.fs) / nfft;
     this.power = new Float64Array(nfft / 2 + 1);
+    this.rawBuf = new Float64Array(n);
+    this.rawSum = new Float64Array(nfft / 2 + 1);
+    const bin = options.spectrum_bin_hz ?? SPECTRAL_EPOCH_DEFAULTS.spectrum_bin_hz;
+    if (!(bin > 0 && Number.isFinite(bin))) throw new UsageError(fatigueMsg.spectrumBin(bin));
+    this.binHz = Math.max(bin, Math.ceil(this.fs / nfft)); // every coarse bin holds ≥ 1 FFT bin
+  }
+
+  /** Feed raw samples (µV) of the current continuous piece (not modified); readEnvelopes' `raw` hook. */
+  raw(x: Float64Array): void {
+    this.pushRaw(x);
+  }
+
+  /** Feed raw samples (batch use and tests; same as `raw`). */
+  pushRaw(x: ArrayLike<number>): void {
+    const n = this.n, buf = this.rawBuf;
+    let i = 0;
+    while (i < x.length) {
+      const m = Math.min(n - this.rawFill, x.length - i);
+      for (let j = 0; j < m; j++) buf[this.rawFill + j] = x[i + j]!;
+      this.rawFill += m;
+      i += m;
+      if (this.rawFill === n) {
+        this.rawEpoch();
+        this.rawFill = 0;
+      }
+    }
+  }
+
+  private rawEpoch(): void {
+    const n = this.n, buf = this.rawBuf, work = this.work, win = this.window;
+    let sum = 0;
+    for (let i = 0; i < n; i++) sum += buf[i]!;
+    if (!Number.isFinite(sum)) return;
+    const mean = sum / n;
+    for (let i = 0; i < n; i++) work[i] = (buf[i]! - mean) * win[i]!;
+    cachedFft(this.nfft).realTransform(this.spec, work);
+    const half = this.nfft / 2, spec = this.spec, acc = this.rawSum;
+    for (let k = 0; k <= half; k++) { const re = spec[2 * k]!, im = spec[2 * k + 1]!; acc[k] = acc[k]! + re * re + im * im; }
+    this.rawEpochs++;
+  }
+
+  /** The mean raw spectrum so far on the coarse grid (new arrays). */
+  meanSpectrum(): MeanSpectrum {
+    const half = this.nfft / 2, bin = this.binHz;
+    let s2 = 0;
+    for (let i = 0; i < this.n; i++) s2 += this.window[i]! * this.window[i]!;
+    const scale = 1 / (this.fs * s2 * Math.max(1, this.rawEpochs));
+    const nb = Math.floor(this.fs / 2 / bin) + 1;
+    const f = new Float64Array(nb), psd = new Float64Array(nb), cnt = new Float64Array(nb);
+    for (let j = 0; j < nb; j++) f[j] = j * bin;
+    for (let k = 0; k <= half; k++) {
+      const j = Math.floor(this.freq[k]! / bin + 0.5);
+      if (j >= nb) continue;
+      const one = k === 0 || k === half ? 1 : 2;
+      psd[j] = psd[j]! + one * this.rawSum[k]! * scale;
+      cnt[j] = cnt[j]! + 1;
+    }
+    for (let j = 0; j < nb; j++) psd[j] = this.rawEpochs > 0 && cnt[j]! > 0 ? psd[j]! / cnt[j]! : NaN;
+    return { f_hz: f, psd, epochs: this.rawEpochs, bin_hz: bin };
   }
 
   /** Feed filtered samples (µV) of the current continuous piece (not modified). */
@@ -131,6 +224,7 @@ export class SpectralEpochs implements ChannelTap {
   /** A discontinuity: drop the incomplete epoch; the next piece starts at `offset_s` from the read start. */
   restart(offset_s: number): void {
     this.fill = 0;
+    this.rawFill = 0;
     this.pieceOffsetS = offset_s;
     this.pieceEpochs = 0;
   }
@@ -164,16 +258,19 @@ export class SpectralEpochs implements ChannelTap {
     return {
       t_s: this.t.toArray(), rms_uv: this.rms.toArray(), mnf_hz: this.mnf.toArray(), mdf_hz: this.mdf.toArray(),
       epoch_s: this.n / this.fs, n: this.n, nfft: this.nfft, fs: this.fs, band_hz: [this.band_hz[0], this.band_hz[1]],
+      spectrum: this.meanSpectrum(),
     };
   }
 }
 
 /**
  * Spectral epochs of a whole (continuous) signal: batch form of SpectralEpochs.
+ * @param raw the unfiltered signal for the mean spectrum (optional; without it the spectrum is NaN with 0 epochs)
  * @example spectralEpochs(y, { fs: 1000, band_hz: [30, 400] }).mnf_hz
  */
-export function spectralEpochs(y: ArrayLike<number>, options: SpectralEpochsOptions): SpectralEpochSeries {
+export function spectralEpochs(y: ArrayLike<number>, options: SpectralEpochsOptions, raw?: ArrayLike<number>): SpectralEpochSeries {
   const s = new SpectralEpochs(options);
   s.push(y);
+  if (raw) s.pushRaw(raw);
   return s.result();
 }

@@ -1,6 +1,7 @@
 // Every analysis setting of a job file, its one default, its unit and its meaning. The schema
 // (job-schema.ts), the template, the loader and the report's methods section all read from here.
 import { FATIGUE_DEFAULTS, type FatigueSettings } from '../exposure/fatigue-settings.js';
+import { QUALITY_DEFAULTS, type QualitySettings } from '../quality/defaults.js';
 
 /** Normalization method: what 100 % of the normalized envelope means. */
 export type NormalizeMethod = 'mve' | 'rve' | 'task-peak' | 'none';
@@ -137,6 +138,12 @@ export interface Settings {
    * JASA categories (lib/exposure/fatigue-settings.ts has every key's meaning and default).
    */
   fatigue: FatigueSettings;
+  /**
+   * Signal-quality screening thresholds and `exclude` (lib/quality/defaults.ts, one row per key in
+   * QUALITY_SETTINGS_TABLE). As written in a job it may be partial: use resolveQualitySettings().
+   * @default QUALITY_DEFAULTS
+   */
+  quality: QualitySettings;
 }
 
 /** The one default of every setting. Frozen: copy before changing. */
@@ -162,6 +169,7 @@ export const DEFAULTS: Readonly<Settings> = deepFreeze({
   eva: { amplitude_edges: [0, 1, 5, 10, 20, 30], duration_edges_s: [0, 1, 3, 7, 15, 31, 63] },
   trace_step_s: 10,
   fatigue: { ...FATIGUE_DEFAULTS },
+  quality: QUALITY_DEFAULTS,
 } as Settings);
 
 function deepFreeze<T>(o: T): T {
@@ -220,4 +228,5 @@ export const SETTINGS_TABLE: readonly SettingDescription[] = Object.freeze([
   { key: 'fatigue.band_hz', value: DEFAULTS.fatigue.band_hz, unit: 'Hz', meaning: 'Band [low, high] of the mean and median frequency; null = the band-pass of the analysis.', source: 'tool choice' },
   { key: 'fatigue.min_epochs', value: DEFAULTS.fatigue.min_epochs, unit: '', meaning: 'Fewest active epochs for a trend; blocks with fewer are reported as insufficient data.', source: 'tool choice' },
   { key: 'fatigue.series_step_s', value: DEFAULTS.fatigue.series_step_s, unit: 's', meaning: 'Step of the mean-frequency-over-time series drawn in the report (median of the active epochs per step).', source: 'tool choice' },
+  { key: 'quality', value: DEFAULTS.quality, unit: '', meaning: 'Signal-quality screening: thresholds of each check and exclude (leave unusable spans out of the statistics); every key is listed with its unit and source in QUALITY_SETTINGS_TABLE (lib/quality/defaults.ts).', source: 'tool choices, see lib/quality/defaults.ts' },
 ]);

@@ -15,6 +15,7 @@ export function effectiveSettings(job: JobFile, ctx: JobContext): Settings {
     ...structuredClone(s),
     eva: { ...structuredClone(DEFAULTS.eva), ...structuredClone(s.eva ?? {}) },
     fatigue: { ...structuredClone(DEFAULTS.fatigue), ...structuredClone(s.fatigue ?? {}) },
+    quality: { ...structuredClone(DEFAULTS.quality), ...structuredClone(s.quality ?? {}) },
   } as Settings;
   const at = (...k: KeyPathStep[]): KeyPathStep[] => ['settings', ...k];
   if (settings.band_hz[0] >= settings.band_hz[1]) ctx.issue(at('band_hz'), jobMsg.bandOrder(settings.band_hz[0], settings.band_hz[1]));

@@ -45,7 +45,7 @@ export interface WorkerInput {
 }
 
 /** Settings as written: every key optional, `eva` partial too. */
-export type SettingsInput = Partial<Omit<Settings, 'eva' | 'fatigue'>> & { eva?: Partial<Settings['eva']> | null; fatigue?: Partial<Settings['fatigue']> | null };
+export type SettingsInput = Partial<Omit<Settings, 'eva' | 'fatigue' | 'quality'>> & { eva?: Partial<Settings['eva']> | null; fatigue?: Partial<Settings['fatigue']> | null; quality?: Partial<Settings['quality']> | null };
 
 export interface JobFile {
   format: string;

@@ -2,6 +2,7 @@
 // editors can validate and complete job.yaml; the loader validates against the same object.
 // Defaults shown here are read from DEFAULTS, so the two cannot drift apart.
 import { DEFAULTS } from './defaults.js';
+import { qualitySchema } from '../quality/quality-schema.js';
 
 /** The value of `format` this version reads. */
 export const JOB_FORMAT = 'shiftload-job/1';
@@ -182,6 +183,7 @@ const settings = {
         series_step_s: { type: 'number', exclusiveMinimum: 0, title: 'Series step, s', description: `Step of the MNF-over-time series in the report, s. Default ${DEFAULTS.fatigue.series_step_s}.`, default: DEFAULTS.fatigue.series_step_s },
       },
     },
+    quality: qualitySchema,
   },
 };
 

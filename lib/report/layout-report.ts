@@ -56,7 +56,7 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
 
   for (const page of model.pages) {
     newSheet(page.id);
-    for (const block of page.blocks) layoutBlock(block, page.id);
+    page.blocks.forEach((block, i) => layoutBlock(block, page.id, page.blocks[i + 1]));
   }
 
   function lines(t: string, width: number, size: number, bold = false) { return wrapText(safeText(t), width, size, measure, bold); }
@@ -70,7 +70,7 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
     }
   }
 
-  function layoutBlock(b: Block, id: string): void {
+  function layoutBlock(b: Block, id: string, next?: Block): void {
     switch (b.type) {
       case 'title': {
         paragraph(b.text, 18, id, PAGE.left, CONTENT_WIDTH, true);
@@ -84,7 +84,9 @@ export function layoutReport(model: ReportModel, measure: Measure, safeText: (s:
       case 'heading': {
         const size = HEADING[b.level];
         const h = size * LEAD * lines(b.text, CONTENT_WIDTH, size, true).length + (b.level === 1 ? 8 : 5);
-        if (y < top) ensure(h + 70, id); // keep a heading with the start of what follows
+        // keep a heading with the start of what follows (a whole row of charts when charts follow)
+        const keep = next?.type === 'charts' ? Math.max(70, ...next.charts.map((c) => c.height + 12)) : 70;
+        if (y < top) ensure(h + keep, id);
         y -= b.level === 1 ? 4 : b.level === 2 ? 5 : 2;
         paragraph(b.text, size, id, PAGE.left, CONTENT_WIDTH, true);
         if (b.level === 1) {

@@ -9,6 +9,8 @@ import { evaChart } from './charts/eva-chart.js';
 import { groupBarsChart, type BarGroup } from './charts/group-bars-chart.js';
 import { pairedChart } from './charts/paired-chart.js';
 import { spectrumChart } from './charts/spectrum-chart.js';
+import { fatigueSeriesChart } from './charts/fatigue-series-chart.js';
+import { jasaChart } from './charts/jasa-chart.js';
 import { timelineChart } from './charts/timeline-chart.js';
 import { fillRequired, fillTemplate, type TemplateVars } from './fill-template.js';
 import { formatHours, formatMinutes, formatNumber, formatSetting } from './format-number.js';
@@ -137,6 +139,8 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
   p1.push({ type: 'heading', level: 2, text: t.headings.quality });
   p1.push({ type: 'paragraph', small: true, text: qualitySentence(results, texts, recordedS) });
   p1.push({ type: 'caution', title: t.headings.cautions, items: texts.cautions });
+  // The comparison in brief follows the cautions, so they stay on the first sheet.
+  p1.push(...comparisonBrief(readComparisons(results), texts, { muscles, segments }));
 
   // ---------------------------------------------------------------- overview charts + table
   const pOverview: Block[] = [{ type: 'heading', level: 1, text: t.headings.overview }, { type: 'paragraph', text: t.overviewIntro, small: true }];
@@ -187,10 +191,27 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
   const comparisons = readComparisons(results);
   const pCmp: Block[] = comparisons.length ? comparisonBlocks(comparisons, texts) : [];
 
+  // ---------------------------------------------------------------- fatigue indicators (optional)
+  const pFatigue = fatigueBlocks(results, texts, { conditions, muscles, workers, segments }, cite);
+
   // ---------------------------------------------------------------- spectra (optional)
   const pSpec: Block[] = [];
   if (results.spectra?.length) {
     pSpec.push({ type: 'heading', level: 1, text: t.headings.spectra });
+    const s0 = results.spectra[0]!;
+    const bandUsed = settingAt(results.settings, ['band_hz']);
+    if (s0.epoch_s !== undefined && s0.bin_hz !== undefined) pSpec.push({ type: 'paragraph', small: true, text: fillRequired(t.spectraIntro, {
+      epoch: formatSetting(s0.epoch_s), bin: formatSetting(s0.bin_hz), used: Array.isArray(bandUsed) ? bandUsed.map((v) => formatSetting(v as number)).join('–') : L.notRecorded }) });
+    if (results.spectra.some((sp) => sp.suggested_band_hz)) {
+      const band = (sp: { suggested_band_hz?: [number, number] }) => sp.suggested_band_hz ? `${formatNumber(sp.suggested_band_hz[0], 0)}–${formatNumber(sp.suggested_band_hz[1], 0)}` : '–';
+      pSpec.push({ type: 'table', small: true, columns: [
+        { label: L.worker, width: 0.6 }, { label: L.condition, width: 1.2 }, { label: L.muscle, width: 1.6 }, { label: L.suggestedBand, width: 1, align: 'right' },
+        { label: L.suggestedNotch, width: 0.6, align: 'right' }, { label: L.mnf, width: 0.6, align: 'right' }, { label: L.mdf, width: 0.6, align: 'right' },
+      ], rows: results.spectra.map((sp) => [sp.worker, sp.condition, sp.muscle, band(sp), sp.suggested_notch_hz ? formatNumber(sp.suggested_notch_hz, 0) : '–',
+        typeof sp.mnf_hz === 'number' ? formatNumber(sp.mnf_hz, 0) : '–', typeof sp.mdf_hz === 'number' ? formatNumber(sp.mdf_hz, 0) : '–']) });
+      const reasons = ordered(results.spectra.flatMap((sp) => sp.suggestion_reasons ?? []));
+      if (reasons.length && reasons.length <= 6) pSpec.push({ type: 'bullets', small: true, items: reasons });
+    }
     const charts = results.spectra.map((s, i) => spectrumChart(`spectrum-${i + 1}-${slug(s.worker)}-${slug(s.condition)}-${slug(s.muscle)}`, s,
       fillRequired(t.captions.spectrum, { muscle: s.muscle, worker: s.worker, condition: s.condition, band: s.suggested_band_hz ? `${formatNumber(s.suggested_band_hz[0], 0)}–${formatNumber(s.suggested_band_hz[1], 0)} Hz` : L.none }),
       { frequency: L.frequency, psd: L.psd }));
@@ -213,6 +234,7 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
     ...(pEva.length ? [{ id: 'eva', blocks: pEva }] : []),
     ...(pCmp.length ? [{ id: 'comparisons', blocks: pCmp }] : []),
     ...workerPages,
+    ...(pFatigue.length ? [{ id: 'fatigue', blocks: pFatigue }] : []),
     ...(pSpec.length ? [{ id: 'spectra', blocks: pSpec }] : []),
     { id: 'methods', blocks: pMethods },
     { id: 'accounting', blocks: pAccount },
@@ -229,6 +251,76 @@ export function buildReportModel(results: StudyResults, texts: ReportTexts = loa
     },
     pages,
   };
+}
+
+/**
+ * The fatigue section: MNF over the recording (one chart per muscle × condition, one line per
+ * worker), the JASA plane of the time blocks, a count of blocks per category, and the method text
+ * from results.fatigue_method. Empty when the results carry no fatigue analysis.
+ */
+function fatigueBlocks(results: StudyResults, texts: ReportTexts, k: { conditions: string[]; muscles: string[]; workers: string[]; segments: string[] }, cite: (...keys: string[]) => void): Block[] {
+  const { fatigue, fatigue_series: series, fatigue_method: method } = results;
+  if (!fatigue || !series || !method || (!fatigue.length && !series.length)) return [];
+  const { t } = texts;
+  const L = t.labels as Record<string, string>;
+  const C = t.captions as Record<string, string>;
+  cite('luttmann2000');
+  const blocks: Block[] = [{ type: 'heading', level: 1, text: t.headings.fatigue }, { type: 'paragraph', small: true, text: t.fatigueIntro },
+    { type: 'paragraph', small: true, text: method.description }, { type: 'caution', title: t.headings.cautions, items: [t.fatigueCare] }];
+  const byWorker = (a: { worker: string }, b: { worker: string }) => k.workers.indexOf(a.worker) - k.workers.indexOf(b.worker) || a.worker.localeCompare(b.worker, 'en', { numeric: true });
+  const pairs: [string, string][] = [];
+  const muscles = ordered([...series.map((s) => s.muscle), ...fatigue.map((b) => b.muscle)], k.muscles);
+  const conditions = ordered([...series.map((s) => s.condition), ...fatigue.map((b) => b.condition)], k.conditions);
+  for (const m of muscles) for (const c of conditions) if (series.some((s) => s.muscle === m && s.condition === c) || fatigue.some((b) => b.muscle === m && b.condition === c)) pairs.push([m, c]);
+
+  // MNF over the recording
+  const mnfCharts: ChartModel[] = [];
+  for (const [m, c] of pairs) {
+    const ss = series.filter((s) => s.muscle === m && s.condition === c).sort(byWorker);
+    if (!ss.length || !ss.some((s) => s.mnf_hz.some((v) => v !== null))) continue;
+    const labels = ss.map((s) => (ss.filter((o) => o.worker === s.worker).length > 1 ? `${s.worker} ${s.recording}` : s.worker));
+    const chart = fatigueSeriesChart(`mnf-${slug(m)}-${slug(c)}`, ss, labels, '', { timeMin: L.timeFromStart, mnf: L.mnf }, k.segments);
+    chart.caption = fillRequired(C.fatigueSeries, { muscle: m, condition: c, step: formatSetting(ss[0]!.step_s), bands: chart.bands.length ? C.fatigueBands : C.fatigueNoBands });
+    mnfCharts.push(chart);
+  }
+  if (mnfCharts.length) {
+    blocks.push({ type: 'heading', level: 2, text: t.headings.fatigueSeries });
+    for (let i = 0; i < mnfCharts.length; i += 2) blocks.push({ type: 'charts', charts: mnfCharts.slice(i, i + 2) });
+  }
+
+  // JASA plane of the time blocks
+  const timeBlocks = fatigue.filter((b) => b.segment === null);
+  const jasaCharts: ChartModel[] = [];
+  const jl = { amplitude: L.amplitudeTrend, mnf: L.mnfTrend, fatigue: L.qFatigue, recovery: L.qRecovery, forceIncrease: L.qForceIncrease, forceDecrease: L.qForceDecrease, clear: L.clearTrend, unclear: L.noClearChange, interval: L.interval };
+  for (const [m, c] of pairs) {
+    const bs = timeBlocks.filter((b) => b.muscle === m && b.condition === c);
+    if (!bs.length) continue;
+    const left = bs.filter((b) => b.category === 'insufficient-data' || b.amplitude_slope_per_min === null || b.mnf_slope_hz_per_min === null).length;
+    if (left === bs.length) continue;
+    jasaCharts.push(jasaChart(`jasa-${slug(m)}-${slug(c)}`, bs, fillRequired(C.jasa, {
+      muscle: m, condition: c, block: formatSetting(method.block_s / 60), unit: bs[0]!.amplitude_slope_unit,
+      left: left ? fillRequired(C.jasaLeft, { n: left }) : '',
+    }), jl));
+  }
+  if (jasaCharts.length) {
+    blocks.push({ type: 'heading', level: 2, text: t.headings.jasa });
+    for (let i = 0; i < jasaCharts.length; i += 2) blocks.push({ type: 'charts', charts: jasaCharts.slice(i, i + 2) });
+  }
+
+  // blocks per category
+  if (timeBlocks.length) {
+    const cats = ['fatigue', 'recovery', 'force-increase', 'force-decrease', 'no-clear-change', 'insufficient-data'] as const;
+    const catLabel: Record<string, string> = { 'fatigue': L.qFatigue, 'recovery': L.qRecovery, 'force-increase': L.qForceIncrease, 'force-decrease': L.qForceDecrease, 'no-clear-change': L.noClearChange, 'insufficient-data': L.insufficientData };
+    const rows: string[][] = [];
+    for (const [m, c] of pairs) {
+      const bs = timeBlocks.filter((b) => b.muscle === m && b.condition === c);
+      if (bs.length) rows.push([m, c, ...cats.map((cat) => String(bs.filter((b) => b.category === cat).length))]);
+    }
+    blocks.push({ type: 'heading', level: 2, text: t.headings.fatigueCounts }, { type: 'table', small: true, columns: [
+      { label: L.muscle, width: 1.5 }, { label: L.condition, width: 1.2 }, ...cats.map((cat) => ({ label: catLabel[cat]!, width: 0.62, align: 'right' as const })),
+    ], rows });
+  }
+  return blocks;
 }
 
 function cap(s: string): string { return s ? s[0].toUpperCase() + s.slice(1) : s; }
@@ -312,6 +404,46 @@ function traceChart(tr: EnvelopeTrace, texts: ReportTexts, segments: string[]): 
 
 /** Measures whose comparisons get statements and paired charts (the page-1 figures); the table lists all. */
 const PRIMARY_MEASURES = ['p50', 'gaps_per_min'];
+
+/**
+ * Page 1: one line per muscle × task summarising the comparisons of the primary measures (median
+ * load, gap frequency): in how many workers the value was lower and higher in the second condition,
+ * and the median difference. Counts are read from per_worker (b < a, b > a). Empty without comparisons.
+ */
+function comparisonBrief(cmp: ReportComparison[], texts: ReportTexts, k: { muscles: string[]; segments: string[] }): Block[] {
+  const B = texts.t.comparisonBrief as Record<string, string>;
+  const primary = cmp.filter((c) => PRIMARY_MEASURES.includes(c.measure));
+  if (!primary.length) return [];
+  const pairKey = (c: ReportComparison) => `${c.condition_a}\u0000${c.condition_b}`;
+  const onePair = new Set(primary.map(pairKey)).size === 1;
+  const items: string[] = [];
+  for (const m of ordered(primary.map((c) => c.muscle), k.muscles)) {
+    // tasks only: the whole recording ('all') mixes them and is listed on the comparison page
+    for (const sg of ordered(primary.filter((c) => c.muscle === m && c.segment !== 'all').map((c) => c.segment), k.segments)) {
+      const mine = primary.filter((c) => c.muscle === m && c.segment === sg);
+      for (const pk of ordered(mine.map(pairKey))) {
+        const cs = PRIMARY_MEASURES.flatMap((ms) => mine.filter((c) => pairKey(c) === pk && c.measure === ms));
+        const parts = cs.map((c) => {
+          const diff = c.median_difference === null ? '–' : (c.median_difference > 0 ? '+' : '') + formatNumber(c.median_difference);
+          const vars = { measure: measureName(c.measure, texts), n: c.n, diff, unit: c.unit };
+          const both = c.per_worker.filter((p) => p.a !== null && p.b !== null);
+          const text = c.paired && both.length
+            ? fillRequired(B.paired, { ...vars, n: both.length, lower: both.filter((p) => p.b! < p.a!).length, higher: both.filter((p) => p.b! > p.a!).length })
+            : fillRequired(B.unpaired, vars);
+          return text + (c.descriptive_only ? B.descriptive : '');
+        });
+        const c0 = cs[0]!;
+        items.push(fillRequired(B.line, { muscle: cap(m), segment: sg, pair: onePair ? '' : fillRequired(B.pair, { a: c0.condition_a, b: c0.condition_b }), parts: parts.join('; ') }));
+      }
+    }
+  }
+  const c0 = primary[0]!;
+  return [
+    { type: 'heading', level: 2, text: texts.t.headings.comparisonBrief },
+    { type: 'paragraph', small: true, text: onePair ? fillRequired(B.intro, { a: c0.condition_a, b: c0.condition_b }) : B.introMixed },
+    { type: 'bullets', small: true, items },
+  ];
+}
 
 function comparisonBlocks(cmp: ReportComparison[], texts: ReportTexts): Block[] {
   const { t } = texts;

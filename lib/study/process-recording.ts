@@ -5,6 +5,9 @@ import type { OpenOptions } from '../io/open-options.js';
 import { readEnvelopes, type ChannelEnvelopes, type EnvelopeSpec, type FilterSpec } from './read-envelopes.js';
 import { fatigueTaps, spectralEpochBuffers, type FatigueTapSpec } from '../exposure/fatigue-taps.js';
 import type { SpectralEpochSeries } from '../exposure/spectral-epochs.js';
+import { fanOutTaps } from '../quality/fan-out-taps.js';
+import { createScreeningTaps, screeningWindows, type ScreeningSpec } from '../quality/screening-taps.js';
+import { screeningBuffers, type ScreeningWindows } from '../quality/screening-types.js';
 
 export interface RecordingJob {
   file: string;
@@ -15,6 +18,8 @@ export interface RecordingJob {
   second?: EnvelopeSpec;
   /** Spectral epochs for the fatigue analysis; absent/null = off. */
   fatigue?: FatigueTapSpec | null;
+  /** Signal-quality screening; absent/null = off. */
+  quality?: ScreeningSpec | null;
 }
 
 export interface RecordingJobResult {
@@ -24,6 +29,8 @@ export interface RecordingJobResult {
   discontinuities: number;
   /** Spectral epochs per channel (same order), or null when the fatigue analysis is off. */
   epochs: SpectralEpochSeries[] | null;
+  /** Screening windows per channel (same order), or null when screening is off. */
+  quality: ScreeningWindows[] | null;
 }
 
 /**
@@ -32,13 +39,15 @@ export interface RecordingJobResult {
  */
 export async function processRecording(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
   const taps = fatigueTaps(job.fatigue);
+  const qtaps = job.quality ? await createScreeningTaps(job.file, job.signals, job.quality, job.open) : null;
   const res = await readEnvelopes({
     file: job.file, signals: job.signals, start_s: 0, end_s: null, filter: job.filter,
-    envelope: job.envelope, second: job.second, open: job.open, onProgress, taps: taps ?? undefined,
+    envelope: job.envelope, second: job.second, open: job.open, onProgress, taps: fanOutTaps(taps, qtaps),
   });
   return {
     channels: res.channels, start_s: res.start_s, end_s: res.end_s, discontinuities: res.discontinuities,
     epochs: taps ? taps.map((t) => t.result()) : null,
+    quality: qtaps ? screeningWindows(qtaps) : null,
   };
 }
 
@@ -50,5 +59,6 @@ export function transferablesOf(r: RecordingJobResult): ArrayBuffer[] {
     if (c.second) out.push(c.second.buffer as ArrayBuffer);
   }
   out.push(...spectralEpochBuffers(r.epochs));
+  out.push(...screeningBuffers(r.quality));
   return out;
 }

@@ -232,6 +232,24 @@ export interface SpectrumResult {
   psd: number[];
   /** The band the analysis suggests for the band-pass filter, Hz. */
   suggested_band_hz?: [number, number];
+  // Written by analyze (lib/study/recording-spectrum.ts); all optional for older results.
+  /** Recording file (as written in the job) and signal label of the channel. */
+  recording?: string;
+  signal?: string;
+  /** Width of the frequency bins, Hz (bin j centred on j·bin_hz). */
+  bin_hz?: number;
+  /** Epochs averaged (all whole epochs of the raw signal; rest included, NaN epochs left out). */
+  epochs?: number;
+  /** Epoch length, s (each epoch: mean removed, Hann window, one FFT). */
+  epoch_s?: number;
+  /** Suggested mains notch, Hz, or null when no mains line stands out. */
+  suggested_notch_hz?: number | null;
+  /** Plain-language reasons for the suggestion, with the numbers behind them (lib/dsp/suggest-band.ts). */
+  suggestion_reasons?: string[];
+  /** Mean and median power frequency of this spectrum over `mnf_band_hz`, Hz (null when no power). */
+  mnf_hz?: number | null;
+  mdf_hz?: number | null;
+  mnf_band_hz?: [number, number];
 }
 
 export interface StudyResults {
@@ -332,4 +350,41 @@ export interface StudyResults {
   fatigue_series?: FatigueSeries[];
   /** Settings and wording of the fatigue analysis. */
   fatigue_method?: FatigueMethod;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Optional field added by the quality screening (lib/quality); additive.
+// ---------------------------------------------------------------------------------------------
+
+/** Signal-quality accounting of one worker × recording × channel (times in s). */
+export interface QualityRow {
+  worker: string;
+  condition: string;
+  muscle: string;
+  signal: string;
+  recording: string;
+  /** Time screened, s. */
+  screened_s: number;
+  /** Time left out of the statistics by the screening (union of excluded spans), s. */
+  excluded_s: number;
+  /** Time flagged by each check, s. */
+  clipped_s: number;
+  flat_s: number;
+  lost_s: number;
+  mains_s: number;
+  motion_s: number;
+  ecg_s: number;
+  /** Samples at the digital limits; null without digital limits (CSV). */
+  clipped_samples: number | null;
+  /** Median heart rate where ECG was found, beats/min. */
+  ecg_rate_bpm: number | null;
+  /** Task-to-noise ratio, dB (null without a noise level). */
+  snr_db: number | null;
+  /** Excluded spans with their reasons, s from the recording start. */
+  excluded: { start_s: number; end_s: number; reason: string }[];
+}
+
+export interface StudyResults {
+  /** Signal-quality accounting per recording channel; absent when screening was not run. */
+  quality?: QualityRow[];
 }

@@ -23,8 +23,13 @@ import { fatigueMethod } from '../exposure/fatigue-method.js';
 import { resolveFatigueSettings } from '../exposure/fatigue-settings.js';
 import { fatigueTapSpec } from '../exposure/fatigue-taps.js';
 import type { SpectralEpochSeries } from '../exposure/spectral-epochs.js';
-import type { FatigueBlock, FatigueSeries } from './results.js';
-import type { EvaMatrix, EnvelopeTrace, Finding, LoadUnit, ReferenceValue, ResultRow, StudyResults } from './results.js';
+import { recordingSpectrum } from './recording-spectrum.js';
+import { excludeSpans } from '../quality/exclude-spans.js';
+import { judgeScreening } from '../quality/judge-screening.js';
+import { qualityRow } from '../quality/quality-row.js';
+import { snrFinding } from '../quality/snr-finding.js';
+import { resolveQualitySettings } from '../quality/defaults.js';
+import type { EvaMatrix, EnvelopeTrace, FatigueBlock, FatigueSeries, Finding, LoadUnit, QualityRow, ReferenceValue, ResultRow, SpectrumResult, StudyResults } from './results.js';
 
 export interface RunStudyOptions {
   /** Progress in seconds of signal processed out of the total. */
@@ -58,6 +63,8 @@ interface PendingChannel {
   samples: number;
   /** Spectral epochs of the fatigue analysis (null when it is off). */
   epochs: SpectralEpochSeries | null;
+  /** True when the quality screening ran on this channel. */
+  screened: boolean;
 }
 
 /** Seconds of margin read around reference and rest spans, so filter start-up stays outside. */
@@ -126,15 +133,19 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   const jobs = Math.max(1, Math.floor(options.jobs ?? 1));
   const pool = new RecordingPool(jobs > 1 ? jobs : 0);
   const fatigueSettings = resolveFatigueSettings(s.fatigue);
+  const qualitySettings = resolveQualitySettings(s.quality);
+  const quality: QualityRow[] = [];
   const fatigue: FatigueBlock[] = [];
   const fatigueSeries: FatigueSeries[] = [];
   const fatigueRates = new Set<number>();
+  const spectra: SpectrumResult[] = []; // mean raw spectrum per worker × recording × channel
   const recordingJob = (rec: StudyRecording, channels: number[]): RecordingJob => ({
     file: rec.file, signals: channels.map((c) => rec.channels[c]!.signalIndex), filter,
     envelope: { window_s: s.rms_window_s, rate_hz: rate },
     second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
     open: openOptions(rec.rate_hz),
     fatigue: fatigueTapSpec(channels.map((c) => rec.channels[c]!), fatigueSettings, s.band_hz),
+    quality: { settings: qualitySettings },
   });
   const queued = new Map<string, Promise<RecordingJobResult>>();
   if (jobs > 1) {
@@ -193,9 +204,23 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
         res.channels.forEach((chRes, c) => {
           filterByRate.set(chRes.fs, chRes.filter);
           const lv = levels.get(`${rec.id}\u0000${c}`)!;
-          const env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
-          const peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);
-          pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples, epochs: res.epochs?.[c] ?? null });
+          let env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
+          let peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);
+          const qw = res.quality?.[c] ?? null;
+          if (qw) {
+            // Quality screening: findings, and unusable spans set to NaN (excluded time) before
+            // normalization, widened by half an RMS window so no envelope value overlaps them.
+            const ch = rec.channels[c]!;
+            const where = { worker: worker.id, recording: rec.fileAsWritten, signal: ch.signal };
+            const q = judgeScreening(qw, { noise_uv: lv.noise_uv, mains_notched: filter.mains_hz !== null, highpass_hz: s.band_hz[0], where, settings: qualitySettings });
+            findings.push(...q.findings);
+            env = excludeSpans(env, rate, q.excluded, s.rms_window_s / 2);
+            if (peakEnv) peakEnv = excludeSpans(peakEnv, rate, q.excluded, s.reference_window_s / 2);
+            const snr = lv.noise_uv !== null && lv.noise_uv > 0 ? snrFinding(excludeSpans(chRes.envelope, rate, q.excluded, s.rms_window_s / 2), lv.noise_uv, where, qualitySettings.snr_min_db) : null;
+            if (snr?.finding) findings.push(snr.finding);
+            quality.push(qualityRow({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten }, q, snr ? snr.snr_db : null));
+          }
+          pending.push({ rec, c, env, peakEnv, clipped: chRes.clipped_low + chRes.clipped_high, samples: chRes.samples, epochs: res.epochs?.[c] ?? null, screened: qw !== null });
           if (res.epochs) fatigueRates.add(chRes.fs);
         });
       }
@@ -227,7 +252,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           method: s.normalize, reference_uv: lv.reference_uv, noise_uv: lv.noise_uv, mve_uv: lv.mve_uv,
           spans: rec.reference.map((sp) => ({ file: sp.fileAsWritten, start_s: sp.start_s, end_s: sp.end_s, annotation: sp.annotation })),
         });
-        if (p.clipped > 0) {
+        if (p.clipped > 0 && !p.screened) { // the screening reports clipping per span itself
           findings.push({ severity: 'warning', code: 'clipping', where, message: findingText.clipping(p.clipped, p.samples) });
         }
         const normalizing = s.normalize !== 'none';
@@ -243,6 +268,10 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           }, fatigueSettings);
           fatigue.push(...f.blocks);
           fatigueSeries.push(f.series);
+          // the channel's mean raw spectrum with its band suggestion and MNF/MDF
+          const sp = recordingSpectrum(p.epochs.spectrum, { worker: worker.id, condition: rec.condition, muscle: ch.muscle, signal: ch.signal, recording: rec.fileAsWritten },
+            p.epochs.band_hz, s.mains_hz === 'none' ? null : s.mains_hz, p.epochs.epoch_s);
+          if (sp) spectra.push(sp);
         }
 
         // The gap threshold in the envelope's unit.
@@ -369,7 +398,9 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     apdf,
     references,
     findings,
+    quality,
     ...(fatigueSettings.enabled ? { fatigue, fatigue_series: fatigueSeries, fatigue_method: fatigueMethod(fatigueSettings, s.band_hz, [...fatigueRates].sort((a, b) => a - b)) } : {}),
+    ...(spectra.length ? { spectra } : {}),
   };
 }
 
@@ -457,5 +488,10 @@ function mergeGroups(parts: RecordingJobResult[], groups: number[][]): Recording
     epochs = [];
     parts.forEach((r, i) => groups[i]!.forEach((c, j) => { epochs![c] = r.epochs![j]!; }));
   }
-  return { channels, start_s: parts[0]!.start_s, end_s: parts[0]!.end_s, discontinuities: parts[0]!.discontinuities, epochs };
+  let quality: RecordingJobResult['quality'] = null;
+  if (parts.every((r) => r.quality !== null)) {
+    quality = [];
+    parts.forEach((r, i) => groups[i]!.forEach((c, j) => { quality![c] = r.quality![j]!; }));
+  }
+  return { channels, start_s: parts[0]!.start_s, end_s: parts[0]!.end_s, discontinuities: parts[0]!.discontinuities, epochs, quality };
 }

@@ -84,6 +84,13 @@ describe('shiftload analyze', () => {
     expect(existsSync(join(dir, 'o', 'results.json'))).toBe(true);
   });
 
+  it('writes report.pdf identical to `shiftload report` of the written results.json', async () => {
+    const { dir, job: j } = job(GOOD);
+    expect((await run(['analyze', j, '-o', join(dir, 'o')])).code).toBe(0);
+    expect((await run(['report', join(dir, 'o', 'results.json'), '-o', join(dir, 'again.pdf')])).code).toBe(0);
+    expect(readFileSync(join(dir, 'again.pdf'))).toEqual(readFileSync(join(dir, 'o', 'report.pdf')));
+  });
+
   it('refuses a non-empty output folder without --force (exit 2), accepts it with --force', async () => {
     const { dir, job: j } = job(GOOD);
     mkdirSync(join(dir, 'out'));

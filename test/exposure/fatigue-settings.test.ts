@@ -24,12 +24,12 @@ describe('fatigueTaps(fatigueTapSpec(channels, settings, filterBand))', () => {
     expect(fatigueTapSpec([{ rate_hz: 1000 }], resolveFatigueSettings({ enabled: false }), [30, 400])).toBeNull();
     expect(fatigueTaps(null)).toBeNull();
   });
-  it('spectralEpochBuffers lists the four distinct buffers of each series', () => {
+  it('spectralEpochBuffers lists the six distinct buffers of each series (four epoch arrays, two of the mean spectrum)', () => {
     const t = fatigueTaps({ rates_hz: [1000], epoch_s: 1, band_hz: [30, 400] })![0]!;
     t.filtered(new Float64Array(3000).fill(1));
     const bufs = spectralEpochBuffers([t.result()]);
-    expect(bufs.length).toBe(4);
-    expect(new Set(bufs).size).toBe(4);
+    expect(bufs.length).toBe(6);
+    expect(new Set(bufs).size).toBe(6);
   });
 });
 

@@ -311,7 +311,8 @@ workers:
         segments: annotations
 `;
     const r = await analyze(d, text);
-    expect(codes(r)).toContain('clipping');
+    // 'clipped' from the quality screening (per span), 'clipping' from the analysis when screening is off
+    expect(codes(r).some((c) => c === 'clipped' || c === 'clipping'), JSON.stringify(codes(r))).toBe(true);
   });
   it('empty cells (NaN) inside a CSV recording give an excluded-time finding', async () => {
     const d = caseDir();

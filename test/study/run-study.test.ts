@@ -1,6 +1,6 @@
 // runStudy on the EDFlib fixture recording: results do not depend on how the file is chunked,
 // the same inputs give the same bytes, and references pass through the same chain as field data.
-import { copyFileSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -44,13 +44,29 @@ describe('runStudy(study)', () => {
   });
 
   it('writes one row per channel × (segment + all) with the configured percentiles', async () => {
-    const res = await runStudy(await loadJob(makeJob()));
+    const res = await runStudy(await loadJob(makeJob('  quality: { exclude: false }')));
     const segs = res.rows.filter((r) => r.signal === 'EMG R trapezius').map((r) => r.segment);
     expect(segs[segs.length - 1]).toBe('all');
     expect(res.rows.every((r) => r.unit === '%MVE')).toBe(true);
     for (const r of res.rows) expect(r.p10! <= r.p50! && r.p50! <= r.p90!).toBe(true);
     const all = res.rows.find((r) => r.segment === 'all' && r.signal === 'EMG R trapezius')!;
     expect(all.valid_s).toBeCloseTo(10, 6); // 10 records of 1 s (truth file header)
+  });
+
+  it('excludes the clipped second found by the screening and reports the exact clipped count', async () => {
+    // expected count: shared/fixtures/edf/emg_3sig.edf.truth.json, EDFlib 1.23 count_at_dig_max
+    const truth = JSON.parse(readFileSync(fixture + '.truth.json', 'utf8')) as { signals: { label: string; count_at_dig_max: number; count_at_dig_min: number }[] };
+    const t = truth.signals.find((q) => q.label === 'EMG R trapezius')!;
+    const res = await runStudy(await loadJob(makeJob()));
+    const clipped = res.findings.filter((f) => f.code === 'clipped' && f.where.signal === 'EMG R trapezius');
+    expect(clipped.length).toBeGreaterThan(0);
+    const all = res.rows.find((r) => r.segment === 'all' && r.signal === 'EMG R trapezius')!;
+    expect(all.valid_s).toBeLessThan(10);
+    expect(all.valid_s).toBeGreaterThan(8);
+    const q = (res as { quality?: { signal: string; clipped_samples?: number }[] }).quality;
+    expect(q).toBeDefined();
+    expect(t.count_at_dig_max + t.count_at_dig_min).toBeGreaterThan(0);
+    expect(clipped.map((f) => f.message).join(' ')).toContain(String(t.count_at_dig_max + t.count_at_dig_min));
   });
 
   it('normalizes so that the reference span itself reaches about 100 %MVE', async () => {

@@ -109,6 +109,13 @@ export function chartMarks(chart: ChartModel, measure: Measure): { marks: Mark[]
     }
   }
 
+  // notes (e.g. quadrant names), inside the plot area
+  for (const nt of chart.notes ?? []) {
+    const x = sx(Math.min(chart.x.max, Math.max(chart.x.min, nt.x))) + (nt.anchor === 'start' ? 3 : -3);
+    const y = sy(nt.y) + (nt.valign === 'top' ? SMALL + 2 : -3);
+    marks.push({ k: 'text', x: r(x), y: r(y), text: nt.text, size: SMALL, anchor: nt.anchor, color: MUTED });
+  }
+
   for (const l of chart.refLines) {
     const y = r(sy(l.y));
     marks.push({ k: 'path', pts: [r(plot.x), y, r(plot.x + plot.w), y], stroke: MUTED, width: 0.5, dash: l.dash });
@@ -173,7 +180,7 @@ function markerMark(marker: string, x: number, y: number, s: number, st: Style):
   else if (marker === 'triangle') pts = [x, y - s * 1.25, x + s * 1.15, y + s * 0.9, x - s * 1.15, y + s * 0.9];
   else if (marker === 'diamond') pts = [x, y - s * 1.3, x + s * 1.1, y, x, y + s * 1.3, x - s * 1.1, y];
   else { pts = []; for (let i = 0; i < 12; i++) pts.push(x + s * Math.cos((i * Math.PI) / 6), y + s * Math.sin((i * Math.PI) / 6)); }
-  const filled = marker === 'circle' || marker === 'triangle';
+  const filled = st.hollow === undefined ? marker === 'circle' || marker === 'triangle' : !st.hollow;
   return { k: 'path', pts: pts.map(r), close: true, stroke: st.color, width: 0.8, fill: filled ? st.color : [1, 1, 1] };
 }
 

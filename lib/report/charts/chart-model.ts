@@ -19,6 +19,8 @@ export interface Style {
   fill?: RGB;
   pattern?: Pattern;
   marker?: Marker;
+  /** Markers drawn as outlines (true) or filled (false); unset: circles and triangles filled, squares and diamonds outlined. */
+  hollow?: boolean;
 }
 
 export interface Tick { value: number; label: string }
@@ -45,6 +47,12 @@ export type Series =
   | { kind: 'points'; label: string; style: Style; pts: { x: number; y: number }[] }
   | { kind: 'segments'; label: string; style: Style; segs: [number, number, number, number][] };
 
+/**
+ * A text placed in axis units (e.g. a quadrant name), kept inside the plot area: `align` says
+ * which side of the point the text lies on (horizontally: start = text to the right of x).
+ */
+export interface Note { x: number; y: number; text: string; anchor: 'start' | 'end'; valign: 'top' | 'bottom' }
+
 /** A shaded cell with a number in it (EVA grid); coordinates in axis units. */
 export interface Cell { x0: number; x1: number; y0: number; y1: number; shade: number; text: string }
 
@@ -64,6 +72,8 @@ export interface ChartModel {
   cells: Cell[];
   /** Legend entries (label + the style drawn as a swatch). */
   legend: { label: string; style: Style; swatch: 'line' | 'box' | 'marker' }[];
+  /** Free texts inside the plot area (optional). */
+  notes?: Note[];
 }
 
 /** An empty chart with the given axes, for builders to fill. */
