@@ -76,6 +76,8 @@ export const ioMsg = {
   writerRate: (rates: string, duration: number) =>
     `EDF writer: sampling rates ${rates} Hz give no whole number of samples per ${duration} s data record`,
   writerNumber: (what: string, value: number) => `EDF writer: ${what} ${value} does not fit in an 8-character EDF header field`,
+  writerRecordSize: (bytes: number, limit: number) =>
+    `EDF writer: a data record would take ${bytes} bytes (limit ${limit}); the sampling rate is implausibly high for this writer`,
   writerPhysRange: (label: string, lo: number, hi: number) => `EDF writer: signal '${label}': physical minimum ${lo} must be below maximum ${hi}`,
   // convert
   convertProcessingGap: (file: string) => `${file}: the recording is discontinuous (EDF+D); filtering or an envelope needs continuous data — convert each continuous span with --start/--end`,
@@ -332,4 +334,23 @@ export const qualityMsg = {
   lowSnr: (signal: string, snrDb: number, limitDb: number, task: number, noise: number) =>
     `${signal}: low signal-to-noise ratio ${Number.isFinite(snrDb) ? snrDb.toFixed(1) : '−∞'} dB (limit ${limitDb} dB): task RMS ${task.toPrecision(3)} µV against a noise level of ${noise.toPrecision(3)} µV; low-level figures (rest, gaps, static load) are uncertain`,
   settingRange: (key: string, range: string, got: unknown) => `quality.${key} must be ${range}, got ${JSON.stringify(got)}`,
+};
+
+// ---------------------------------------------------------------------------------------------
+// robust: input limits found by fuzzing; output paths (lib/io/write-atomic.ts)
+// ---------------------------------------------------------------------------------------------
+
+export const inputMsg = {
+  spanUnit: (signal: string, spanFile: string, spanUnit: string, recFile: string, recUnit: string) =>
+    `signal '${signal}' is in ${spanUnit} in ${spanFile} but in ${recUnit} in ${recFile}; units are not converted — export both in the same unit`,
+  csvLineTooLong: (file: string, line: number, limit: number) =>
+    `${file}:${line}: line longer than ${limit} bytes; not a CSV/TSV text export (zero-filled or binary file?)`,
+  csvTimeRate: (file: string, step: number) => `${file}: time column: a step of ${step} s gives no usable sampling rate or duration`,
+};
+
+export const outputMsg = {
+  notRegular: (file: string) => `${file}: output path exists and is not a regular file (a device, pipe or socket); choose a file path`,
+  isFolder: (file: string) => `${file}: output path is a folder; give a file name`,
+  noFolder: (file: string) => `${file}: the folder for this output does not exist`,
+  cannotWrite: (file: string, reason: string) => `${file}: cannot write (${reason})`,
 };

@@ -1,6 +1,6 @@
 // `shiftload analyze JOB [--out DIR]`: the whole study job — job file in, results.json,
 // segments.csv and report.pdf out.
-import { readFileSync } from 'node:fs';
+import { existsSync, rmSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { basename, dirname, extname, join, relative } from 'node:path';
 import type { CommandModule } from 'yargs';
@@ -12,6 +12,7 @@ import { compareConditions } from '../study/compare-conditions.js';
 import { parseDetect, planComparisons, type DetectTargets } from '../study/plan-comparisons.js';
 import type { StudyResults } from '../study/results.js';
 import { runStudy } from '../study/run-study.js';
+import { stableJson } from '../study/stable-json.js';
 import { OUTPUT_NAMES, prepareOutputFolder, writeStudyOutputs } from '../study/write-study-outputs.js';
 import type { CliIO, WithIO } from './cli-io.js';
 import { ProgressBar } from './progress-bar.js';
@@ -32,6 +33,8 @@ export interface AnalyzeOutcome {
   results: StudyResults;
   outDir: string;
   files: string[];
+  /** Outputs of an earlier run removed because they no longer match (report.pdf with --no-report). */
+  removed?: string[];
 }
 
 /**
@@ -70,18 +73,27 @@ export async function analyzeJob(jobPath: string, options: AnalyzeOptions, io: C
     bar.stop();
   }
   results.comparisons = planComparisons(compareConditions(results.rows, {}), options.detect);
-  const written = writeStudyOutputs(outDir, results);
   // The report is drawn from results as written (numbers rounded in results.json), so that
-  // `shiftload report results.json` later gives the same bytes.
-  results = JSON.parse(readFileSync(written.results, 'utf8')) as StudyResults;
-  const files = [written.results, written.rows];
+  // `shiftload report results.json` later gives the same bytes. It is rendered before anything is
+  // written, so a failing renderer leaves every previous output as it was; then all outputs are
+  // written under temporary names and renamed together.
+  const computed = results;
+  results = JSON.parse(stableJson(computed)) as StudyResults;
+  let pdfBytes: Uint8Array | null = null;
   if (options.report !== false) {
-    const { writeReport } = await import('../report/render-report.js');
-    const pdf = join(outDir, OUTPUT_NAMES.report);
-    await writeReport(results, pdf, { svgDir: options.svg ? join(outDir, 'charts') : undefined });
-    files.push(pdf);
+    const { renderReport } = await import('../report/render-report.js');
+    pdfBytes = await renderReport(results, { svgDir: options.svg ? join(outDir, 'charts') : undefined });
   }
-  return { study, results, outDir, files };
+  const written = writeStudyOutputs(outDir, computed, pdfBytes ?? undefined);
+  const files = [written.results, written.rows, ...(written.report !== undefined ? [written.report] : [])];
+  const pdf = join(outDir, OUTPUT_NAMES.report);
+  const removed: string[] = [];
+  if (pdfBytes === null && existsSync(pdf)) {
+    // --no-report into a reused folder: a report of an earlier run must not sit beside new results
+    rmSync(pdf);
+    removed.push(pdf);
+  }
+  return { study, results, outDir, files, removed };
 }
 
 /** A short plain summary printed after the analysis. */
@@ -94,6 +106,7 @@ export function summaryText(outcome: AnalyzeOutcome): string {
     `${results.title}: ${workers} worker(s), ${results.rows.length} rows (worker × condition × muscle × segment)`,
     `findings: ${errors} error(s), ${warnings} warning(s), ${results.findings.length - errors - warnings} note(s)`,
     ...outcome.files.map((f) => `wrote ${relative(process.cwd(), f) || f}`),
+    ...(outcome.removed ?? []).map((f) => `removed ${relative(process.cwd(), f) || f} (from an earlier run; --no-report)`),
   ];
   return lines.join('\n') + '\n';
 }

@@ -168,6 +168,7 @@ class EdfSink implements Sink {
     const sixteen = (s: SignalInfo) => !Number.isNaN(s.digital_min) && s.digital_min >= -32768 && s.digital_max <= 32767;
     this.writer = new EdfWriter(path, sel.map((s, j) => {
       let [lo, hi] = stage?.physical_range?.[j] ?? [s.physical_min, s.physical_max];
+      if (lo > hi) [lo, hi] = [hi, lo]; // EDF allows an inverted range (reversed polarity)
       if (!(hi > lo)) { lo -= 1; hi += 1; }
       const keepDigital = !stage && sixteen(s);
       return {

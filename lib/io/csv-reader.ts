@@ -3,12 +3,12 @@
 // header phase validates every cell, counts rows and empty cells and finds the sampling rate (time
 // column or option); `read()` parses the rows again into chunk buffers.
 // Conventions (common practice, no single source): delimiter ',' ';' or tab, detected from the
-// header row; with ';' or tab a ',' in a number is a decimal comma; surrounding double quotes are
+// header row; with ';' or tab a ',' in a number is a decimal comma (a '.' is accepted too); surrounding double quotes are
 // removed from cells (quoted delimiters are not supported); blank lines are skipped.
 import type { FileHandle } from 'node:fs/promises';
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
 import { InputError, UsageError } from '../errors.js';
-import { ioMsg, msg } from '../messages.js';
+import { inputMsg, ioMsg, msg } from '../messages.js';
 import { lineBatches } from './line-batches.js';
 import { IO_DEFAULTS, type OpenOptions } from './open-options.js';
 import { parseDecimal } from './parse-decimal.js';
@@ -55,7 +55,7 @@ export async function openCsv(file: string, fh: FileHandle, _size: number, optio
   try {
     if (options.rate_hz !== undefined && !(options.rate_hz > 0)) throw new UsageError(msg.badOption('rate', 'a rate in Hz > 0', String(options.rate_hz)));
     let lastLine = 0;
-    for await (const b of lineBatches(fh, blockBytes)) {
+    for await (const b of lineBatches(fh, blockBytes, (l, limit) => { throw new InputError(inputMsg.csvLineTooLong(file, l, limit), { file, where: `line ${l}` }); })) {
       for (let k = 0; k < b.count; k++) {
         const s = b.start[k];
         const e = b.end[k];
@@ -98,6 +98,8 @@ export async function openCsv(file: string, fh: FileHandle, _size: number, optio
         steps.forEach((d, i) => checkStep(file, stepLines[i], d, med));
       }
       rate = snapRate(1 / med, (rows - 1) / (tPrev - tFirst));
+      // steps like 1e308 (or 5e-324) overflow the rate or the duration
+      if (!(Number.isFinite(rate) && rate > 0 && Number.isFinite(rows / rate))) throw new InputError(inputMsg.csvTimeRate(file, med), { file, where: 'time column' });
     } else if (options.rate_hz !== undefined) {
       rate = options.rate_hz;
     } else {
@@ -242,7 +244,7 @@ function scanRow(file: string, buf: Buffer, s: number, e: number, line: number, 
     const b = cellEnd[c];
     if (isMissing(buf, a, b)) { nan[j]++; continue; }
     const v = parseDecimal(buf, a, b, L.decimalComma);
-    if (Number.isNaN(v)) throw new InputError(ioMsg.csvNotNumber(file, line, L.names[j], buf.toString('utf8', a, b)), { file, where: `line ${line}` });
+    if (!Number.isFinite(v)) throw new InputError(ioMsg.csvNotNumber(file, line, L.names[j], buf.toString('utf8', a, b)), { file, where: `line ${line}` });
     if (v < mins[j]) mins[j] = v;
     if (v > maxs[j]) maxs[j] = v;
   }
@@ -251,7 +253,7 @@ function scanRow(file: string, buf: Buffer, s: number, e: number, line: number, 
   const b = cellEnd[L.timeColumn];
   if (isMissing(buf, a, b)) return NaN;
   const t = parseDecimal(buf, a, b, L.decimalComma);
-  if (Number.isNaN(t)) throw new InputError(ioMsg.csvNotNumber(file, line, 'time', buf.toString('utf8', a, b)), { file, where: `line ${line}` });
+  if (!Number.isFinite(t)) throw new InputError(ioMsg.csvNotNumber(file, line, 'time', buf.toString('utf8', a, b)), { file, where: `line ${line}` });
   return t;
 }
 
@@ -276,7 +278,7 @@ async function* readRows(file: string, fh: FileHandle, L: CsvLayout, info: Recor
   let fill = 0;
   let chunkRow = s0;
   let done = false;
-  for await (const b of lineBatches(fh, blockBytes)) {
+  for await (const b of lineBatches(fh, blockBytes, (l, limit) => { throw new InputError(inputMsg.csvLineTooLong(file, l, limit), { file, where: `line ${l}` }); })) {
     for (let k = 0; k < b.count; k++) {
       const s = b.start[k];
       const e = b.end[k];

@@ -236,7 +236,8 @@ function parseIntField(file: string, text: string, field: string, offset: number
 
 function parseNumField(file: string, text: string, field: string, offset: number): number {
   const t = text.trim();
-  if (!NUM_RE.test(t)) throw new InputError(ioMsg.headerNumber(file, field, offset, text, 'a number'), { file, where: `byte ${offset}` });
+  // '1e999' matches the pattern but overflows to Infinity: refused like any other non-number
+  if (!NUM_RE.test(t) || !Number.isFinite(Number(t))) throw new InputError(ioMsg.headerNumber(file, field, offset, text, 'a number'), { file, where: `byte ${offset}` });
   return Number(t);
 }
 
@@ -252,7 +253,8 @@ function parseStart(file: string, date: string, time: string, recording: string)
   if (rm && MONTHS.includes(rm[2]) && Number(rm[3]) % 100 === yy) year = Number(rm[3]);
   const mo = Number(dm[2]);
   const d = Number(dm[1]);
-  if (mo < 1 || mo > 12 || d < 1 || d > 31) throw new InputError(ioMsg.headerNumber(file, 'start date', 168, date, 'a valid dd.mm.yy date'), { file });
+  // day checked against the month's length (31.02. is refused; 29.02. only in leap years)
+  if (mo < 1 || mo > 12 || d < 1 || d > new Date(Date.UTC(year, mo, 0)).getUTCDate()) throw new InputError(ioMsg.headerNumber(file, 'start date', 168, date, 'a valid dd.mm.yy date'), { file });
   if (Number(tm[1]) > 23 || Number(tm[2]) > 59 || Number(tm[3]) > 60) {
     throw new InputError(ioMsg.headerNumber(file, 'start time', 176, time, 'a valid hh.mm.ss time'), { file });
   }

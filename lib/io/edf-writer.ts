@@ -50,6 +50,8 @@ const MONTHS = ['JAN', 'FEB', 'MAR', 'APR', 'MAY', 'JUN', 'JUL', 'AUG', 'SEP', '
 /** Bytes reserved for the time-keeping TAL of each record ("+" + up to 18 digits + 0x14 0x14 0x00). */
 const TIMEKEEPING_BYTES = 24;
 const OUT_BUFFER_BYTES = 1 << 20;
+/** Largest data record the writer accepts, bytes (keeps the per-signal queues allocatable). */
+const MAX_RECORD_BYTES = 1 << 26;
 
 /**
  * Write an EDF+C (or BDF+C) file from streamed physical values.
@@ -148,6 +150,7 @@ export class EdfWriter {
     this.annBytes = Math.ceil(need / this.bps) * this.bps;
     this.pending = tals;
     this.recordSize = this.spr.reduce((a, b) => a + b, 0) * this.bps + this.annBytes;
+    if (this.recordSize > MAX_RECORD_BYTES) throw new UsageError(ioMsg.writerRecordSize(this.recordSize, MAX_RECORD_BYTES));
 
     this.queue = this.spr.map((k) => new Int32Array(Math.max(4 * k, 1024)));
     this.qLen = new Int32Array(n);

@@ -14,11 +14,21 @@ export interface LineBatch {
   firstLine: number;
 }
 
+/** Longest line accepted, bytes: a text export never comes near it; a zero-filled or binary file does. */
+export const MAX_LINE_BYTES = 1 << 24;
+
 /**
  * Stream the lines of an open file in batches.
  * @param blockBytes bytes per read (the buffer grows only for a single longer line)
+ * @param tooLong called (and must throw) when a line exceeds `maxLineBytes`; it gets the 1-based
+ *   line number. @default throws a plain Error
+ * @param maxLineBytes @default MAX_LINE_BYTES (16 MiB)
  */
-export async function* lineBatches(fh: FileHandle, blockBytes: number): AsyncGenerator<LineBatch> {
+export async function* lineBatches(
+  fh: FileHandle, blockBytes: number,
+  tooLong: (line: number, limit: number) => never = (l, limit) => { throw new Error(`line ${l} is longer than ${limit} bytes`); },
+  maxLineBytes = MAX_LINE_BYTES,
+): AsyncGenerator<LineBatch> {
   let buf = Buffer.alloc(Math.max(16, blockBytes));
   let cap = 1024;
   let start = new Int32Array(cap);
@@ -29,6 +39,7 @@ export async function* lineBatches(fh: FileHandle, blockBytes: number): AsyncGen
   let first = true;
   for (;;) {
     if (carry === buf.length) {
+      if (carry >= maxLineBytes) tooLong(line, maxLineBytes);
       const bigger = Buffer.alloc(buf.length * 2);
       buf.copy(bigger, 0, 0, carry);
       buf = bigger;

@@ -9,7 +9,8 @@ const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i);
  * The number in bytes [a, b) of `buf`, or NaN if the bytes are not a plain decimal number
  * (sign, digits, one decimal separator, optional exponent). Leading/trailing spaces are allowed.
  *
- * @param decimalComma accept ',' instead of '.' as the decimal separator
+ * @param decimalComma accept ',' as well as '.' as the decimal separator (one separator per number;
+ *   used with ';' and tab delimiters, where a ',' cannot be a delimiter)
  * @example parseDecimal(Buffer.from('-12,5'), 0, 5, true) // -12.5
  */
 export function parseDecimal(buf: Buffer, a: number, b: number, decimalComma: boolean): number {
@@ -32,7 +33,7 @@ export function parseDecimal(buf: Buffer, a: number, b: number, decimalComma: bo
       if (mant !== 0 || c !== 0x30) sig++;
       mant = mant * 10 + (c - 0x30);
       if (sawSep) frac++;
-    } else if (c === sep && !sawSep) {
+    } else if ((c === sep || c === 0x2e) && !sawSep) {
       sawSep = true;
     } else break;
   }

@@ -6,7 +6,7 @@ import type { Annotation } from '../io/recording.js';
 /** Header facts of one recording. */
 export interface RecordingDescription {
   /** Data signals in file order (index = position = SignalInfo.index). */
-  signals: { label: string; rate_hz: number }[];
+  signals: { label: string; rate_hz: number; /** physical unit as written in the file */ unit?: string }[];
   /** Duration, s. */
   duration_s: number;
   /** Annotations (EDF+ TALs or CSV events), onsets in s from the recording start. */
@@ -31,7 +31,7 @@ export const describeRecordingFile: DescribeRecording = async (path, options = {
   const rec = await openRecording(path, options.rate_hz !== undefined ? { rate_hz: options.rate_hz } : {});
   try {
     return {
-      signals: rec.info.signals.map((s) => ({ label: s.label, rate_hz: s.rate_hz })),
+      signals: rec.info.signals.map((s) => ({ label: s.label, rate_hz: s.rate_hz, unit: s.unit })),
       duration_s: rec.info.duration_s,
       annotations: rec.info.annotations,
     };

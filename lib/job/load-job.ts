@@ -137,6 +137,9 @@ async function resolveRecording(
 
   // Signals missing from the field recording are reported there once, not again per span file.
   const missingHere = new Set(desc ? r.channels.map((c) => c.signal).filter((sig) => !desc.signals.some((s) => s.label === sig)) : []);
+  // Units of the channels in the field recording: a span file must use the same ones (not converted).
+  const unitsHere = new Map<string, string>();
+  for (const sg of desc?.signals ?? []) if (sg.unit !== undefined) unitsHere.set(sg.label, sg.unit);
 
   // Reference, rest and MVE spans: the recording's own, else the worker's.
   const pick = (key: 'reference' | 'rest' | 'mve_reference') =>
@@ -153,7 +156,7 @@ async function resolveRecording(
       const sPath = spanPath(p.path, p.spans, k);
       const spanFile = sp.file ?? (p.own ? r.file : undefined);
       if (spanFile === undefined) continue; // reported at worker level
-      const resolved = await resolveSpan(sp, spanFile, sPath, r, rPath, missingHere, ctx);
+      const resolved = await resolveSpan(sp, spanFile, sPath, r, rPath, missingHere, ctx, unitsHere);
       for (const s of resolved) {
         if (abs !== null && s.file === abs && s.annotation !== null) usedAnnotations.add(s.annotation);
         out.push(s);

@@ -1,7 +1,7 @@
 // Resolve a reference/rest/MVE span (times, or every annotation with a given text) in its file,
 // checking that the recording's channels exist there and that the span fits the file.
 import { resolve } from 'node:path';
-import { jobMsg } from '../messages.js';
+import { inputMsg, jobMsg } from '../messages.js';
 import type { RecordingInput, SpanInput } from './job-file.js';
 import { TIME_EPS, type JobContext } from './job-context.js';
 import { formatKeyPath, type KeyPathStep } from './key-path.js';
@@ -10,7 +10,7 @@ import type { StudySpan } from './study-types.js';
 /** Resolve one span (times or annotation) in its file; check the recording's signals exist there. */
 export async function resolveSpan(
   sp: SpanInput, written: string, sPath: KeyPathStep[], r: RecordingInput, rPath: KeyPathStep[],
-  missingHere: ReadonlySet<string>, ctx: JobContext,
+  missingHere: ReadonlySet<string>, ctx: JobContext, unitsHere: ReadonlyMap<string, string> = new Map(),
 ): Promise<StudySpan[]> {
   const byTimes = sp.start_s !== undefined || sp.end_s !== undefined;
   const byAnnotation = sp.annotation !== undefined;
@@ -30,9 +30,17 @@ export async function resolveSpan(
   // The recording's channels must exist in the span's file too (same signal labels).
   const signalIndices: number[] = [];
   r.channels.forEach((c, ci) => {
-    const idx = desc.signals.findIndex((s) => s.label === c.signal);
+    let idx = desc.signals.findIndex((s) => s.label === c.signal);
     if (idx < 0 && !missingHere.has(c.signal)) {
       ctx.issue(filePath, jobMsg.noSignalForChannel(c.signal, written, formatKeyPath([...rPath, 'channels', ci]), desc.signals.map((s) => s.label)));
+    }
+    // Physical values are used as written (no unit conversion): a reference or rest span in mV
+    // against a recording in µV would silently scale every normalized value by 1000.
+    const spanUnit = idx >= 0 ? desc.signals[idx].unit : undefined;
+    const recUnit = unitsHere.get(c.signal);
+    if (spanUnit !== undefined && recUnit !== undefined && sameUnit(spanUnit, recUnit) === false) {
+      ctx.issue(filePath, inputMsg.spanUnit(c.signal, written, spanUnit, r.file, recUnit));
+      idx = -1;
     }
     signalIndices.push(idx);
   });
@@ -65,4 +73,10 @@ export async function resolveSpan(
     }
   }
   return out;
+}
+
+/** Units compare equal ignoring case, spaces and the µ/u spelling ("µV" = "uV" = "UV"). */
+function sameUnit(a: string, b: string): boolean {
+  const norm = (u: string) => u.trim().toLowerCase().replace(/\u00b5|\u03bc/g, 'u');
+  return norm(a) === norm(b);
 }

@@ -1,11 +1,11 @@
 // Writing an analysis' outputs into a folder: results.json, segments.csv (and the report, when the
 // caller passes a renderer). Each file is written atomically, so a killed run leaves the previous
-// outputs intact; an existing non-empty folder is reused only when asked (--force), and no output
+// outputs intact (and its temporary files are removed by the next run); an existing non-empty folder is reused only when asked (--force), and no output
 // may overwrite an input.
 import { existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { InputError } from '../errors.js';
-import { writeAtomic } from '../io/write-atomic.js';
+import { removeStaleTemps, writeAtomicSet } from '../io/write-atomic.js';
 import { msg } from '../messages.js';
 import type { StudyResults } from './results.js';
 import { rowsToCsv } from './rows-csv.js';
@@ -30,6 +30,8 @@ export function prepareOutputFolder(dir: string, options: OutputFolderOptions): 
   const abs = resolve(dir);
   if (existsSync(abs)) {
     if (!statSync(abs).isDirectory()) throw new InputError(msg.outputNotFolder(dir), { file: dir });
+    // temporary files of a killed earlier run are not outputs: remove them first
+    removeStaleTemps(abs, Object.values(OUTPUT_NAMES));
     if (!options.force && readdirSync(abs).length > 0) throw new InputError(msg.outputExists(dir), { file: dir });
   } else {
     mkdirSync(abs, { recursive: true });
@@ -41,11 +43,19 @@ export function prepareOutputFolder(dir: string, options: OutputFolderOptions): 
   }
 }
 
-/** Write results.json and segments.csv into `dir`; returns the paths written. */
-export function writeStudyOutputs(dir: string, results: StudyResults): { results: string; rows: string } {
+/**
+ * Write results.json and segments.csv (and report.pdf when `reportPdf` is given) into `dir` as one
+ * set: all are written and synced under temporary names, then renamed into place together
+ * (writeAtomicSet). Returns the paths written.
+ */
+export function writeStudyOutputs(dir: string, results: StudyResults, reportPdf?: Uint8Array): { results: string; rows: string; report?: string } {
   const r = join(dir, OUTPUT_NAMES.results);
   const c = join(dir, OUTPUT_NAMES.rows);
-  writeAtomic(r, stableJson(results));
-  writeAtomic(c, rowsToCsv(results.rows));
-  return { results: r, rows: c };
+  const p = join(dir, OUTPUT_NAMES.report);
+  writeAtomicSet([
+    { target: r, data: stableJson(results) },
+    { target: c, data: rowsToCsv(results.rows) },
+    ...(reportPdf !== undefined ? [{ target: p, data: reportPdf }] : []),
+  ]);
+  return { results: r, rows: c, ...(reportPdf !== undefined ? { report: p } : {}) };
 }
