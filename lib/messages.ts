@@ -242,6 +242,7 @@ export const findingText = {
   segmentTooShort: (label: string, length: number, window: number) => `segment '${label}' lasts ${length.toPrecision(3)} s, shorter than the ${window} s RMS window; its figures rest on very few values`,
   excludedTime: (label: string, excluded: number, length: number) => `${excluded.toFixed(1)} s of ${length.toFixed(1)} s in segment '${label}' had no valid data (missing or NaN samples, or spans the quality screening judged unusable) and were left out`,
   referenceWeak: (signal: string, p90: number) => `${signal}: task values reach ${p90.toFixed(0)} %MVE (90th percentile above 100 %); the reference contraction was probably not maximal, so %MVE figures are overstated`,
+  unitUnknown: (signal: string, unit: string) => `${signal}: unit '${unit}' is not a voltage shiftload knows (uV, µV, mV, V, nV); values are taken as µV`,
   discontinuous: (n: number) => `the recording has ${n} interruption(s) (EDF+D); filters restart after each and the time between records counts as no data`,
 };
 

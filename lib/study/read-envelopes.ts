@@ -5,6 +5,7 @@
 import { BandFilter, type BandFilterSettings } from '../dsp/band-filter.js';
 import { RmsEnvelope } from '../dsp/rms-envelope.js';
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
+import { microvoltsPerUnit } from '../io/microvolts-per-unit.js';
 import { openRecording } from '../io/open-recording.js';
 import type { OpenOptions } from '../io/open-options.js';
 import { GrowableFloat64 } from './growable-float64.js';
@@ -72,6 +73,9 @@ export interface ChannelEnvelopes {
   samples: number;
   /** Sampling rate of the signal, Hz. */
   fs: number;
+  /** The signal's unit in the file, and the factor applied to reach µV (1 when the unit is unknown). */
+  unit: string;
+  unit_known: boolean;
 }
 
 export interface ReadEnvelopesResult {
@@ -93,7 +97,9 @@ class ChannelState {
   clippedHigh = 0;
   samples = 0;
 
-  constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest, private readonly tap: ChannelTap | null) {
+  private scratch = new Float64Array(0);
+
+  constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest, private readonly tap: ChannelTap | null, readonly toMicrovolts: number) {
     this.secondOut = req.second ? new GrowableFloat64() : null;
     this.filter = this.newFilter();
     this.main = new RmsEnvelope({ fs, window_s: req.envelope.window_s, rate_hz: req.envelope.rate_hz });
@@ -106,6 +112,14 @@ class ChannelState {
   }
 
   push(x: Float64Array): void {
+    if (this.toMicrovolts !== 1) {
+      // Everything downstream (envelopes, taps, thresholds) works in µV.
+      if (this.scratch.length < x.length) this.scratch = new Float64Array(x.length);
+      const y = this.scratch.subarray(0, x.length);
+      const k = this.toMicrovolts;
+      for (let i = 0; i < x.length; i++) y[i] = x[i]! * k;
+      x = y;
+    }
     if (this.tap?.raw) this.tap.raw(x, this.samples);
     this.samples += x.length;
     const y = this.filter.push(x);
@@ -153,7 +167,7 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
     const start_s = Math.max(0, req.start_s);
     const fileEnd = info.end_s ?? info.duration_s; // EDF+D: clock time of the last record's end
     const end_s = req.end_s === null ? fileEnd : Math.min(fileEnd, req.end_s);
-    const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null));
+    const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null, microvoltsPerUnit(info.signals[i]!.unit) ?? 1));
     let discontinuities = 0;
     let first = true;
     for await (const chunk of rec.read({ signals: req.signals, start_s, end_s })) {
@@ -177,7 +191,7 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
     for (const s of states) s.flush();
     // Pad to the full span so sample k always means start_s + k / rate.
     const nMain = secondsToSamples(end_s - start_s, req.envelope.rate_hz);
-    const channels = states.map((s) => {
+    const channels = states.map((s, c) => {
       if (s.mainOut.length < nMain) s.mainOut.fill(NaN, nMain - s.mainOut.length);
       const env = s.mainOut.toArray().subarray(0, Math.max(nMain, 0));
       let second: Float64Array | null = null;
@@ -189,6 +203,7 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
       return {
         envelope: env, second, filter: s.filter.settings, rate_hz: req.envelope.rate_hz,
         clipped_low: s.clippedLow, clipped_high: s.clippedHigh, samples: s.samples, fs: s.fs,
+        unit: info.signals[req.signals[c]!]!.unit, unit_known: microvoltsPerUnit(info.signals[req.signals[c]!]!.unit) !== null,
       };
     });
     return { channels, start_s, end_s, discontinuities };

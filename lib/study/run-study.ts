@@ -203,6 +203,9 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
         }
         res.channels.forEach((chRes, c) => {
           filterByRate.set(chRes.fs, chRes.filter);
+          if (!chRes.unit_known) {
+            findings.push({ severity: 'warning', code: 'unit-unknown', where: { worker: worker.id, recording: rec.fileAsWritten, signal: rec.channels[c]!.signal }, message: findingText.unitUnknown(rec.channels[c]!.signal, chRes.unit) });
+          }
           const lv = levels.get(`${rec.id}\u0000${c}`)!;
           let env = lv.noise_uv === null ? chRes.envelope : noiseCorrectArray(chRes.envelope, lv.noise_uv);
           let peakEnv = chRes.second === null ? null : lv.noise_uv === null ? chRes.second : noiseCorrectArray(chRes.second, lv.noise_uv);

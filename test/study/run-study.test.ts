@@ -85,3 +85,37 @@ describe('runStudy(study)', () => {
     expect(mean).toBeLessThan(105);
   });
 });
+
+describe('runStudy(study) with signals in mV', () => {
+  it('converts every amplitude to µV: a mV copy of a recording gives the same µV results', async () => {
+    const { convertRecording } = await import('../../lib/cli/convert.js');
+    const dir = mkdtempSync(join(tmpdir(), 'shiftload-units-'));
+    await convertRecording(fixture, { format: 'csv', out: join(dir, 'uv.csv'), signals: ['EMG R forearm'] });
+    const lines = readFileSync(join(dir, 'uv.csv'), 'utf8').trim().split('\n');
+    // same values in mV (÷1000), header unit [mV] (CSV reader: `name [unit]`)
+    const mv = ['time_s,EMG R forearm [mV]', ...lines.slice(1).map((l) => { const [t, v] = l.split(','); return `${t},${Number(v) / 1000}`; })];
+    writeFileSync(join(dir, 'mv.csv'), mv.join('\n') + '\n');
+    const job = (file: string) => {
+      const p = join(dir, `${file}.yaml`);
+      writeFileSync(p, `format: shiftload-job/1
+title: units
+settings: { band_hz: [20, 200], normalize: none, noise_correction: false }
+workers:
+  - id: W1
+    recordings:
+      - file: ${file}
+        condition: a
+        channels: [{ signal: "EMG R forearm", muscle: forearm }]
+        segments: [{ label: all-of-it, start_s: 0, end_s: 9 }]
+`);
+      return p;
+    };
+    const a = await runStudy(await loadJob(job('uv.csv')));
+    const b = await runStudy(await loadJob(job('mv.csv')));
+    const ra = a.rows.find((r) => r.segment === 'all-of-it')!;
+    const rb = b.rows.find((r) => r.segment === 'all-of-it')!;
+    expect(rb.unit).toBe('uV');
+    for (const q of ['p10', 'p50', 'p90'] as const) expect(Math.abs(rb[q]! / ra[q]! - 1)).toBeLessThan(1e-9);
+    expect(b.findings.some((f) => f.code === 'unit-unknown')).toBe(false);
+  });
+});
