@@ -1,7 +1,7 @@
-// The bad-input catalogue (test/robust/CATALOGUE.md), the classes not already covered elsewhere:
+// The bad-input catalogue (DEVELOPERS.md, "Bad input and faults"), the classes not already covered elsewhere:
 // each damaged input gives exit 2 and one stderr line naming the file and the field, line or byte —
 // or, when the data can still be used, exit 0 with a finding in results.json. Classes covered by
-// other tests are listed in CATALOGUE.md with the test file that covers them.
+// other tests are listed in that catalogue with the test file that covers them.
 import { copyFileSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
