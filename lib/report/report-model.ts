@@ -516,6 +516,11 @@ function methodsBlocks(results: StudyResults, texts: ReportTexts, cite: (...k: s
   blocks.push({ type: 'paragraph', text: fillRequired(M.pipeline, vars) + ' ' + M.sameChain });
   if (noiseOn !== false) cite('rds2019');
   cite('mathiassen1995');
+  const q = results.settings.quality as { exclude?: boolean } | undefined;
+  if (q) {
+    const screening = fillTemplate(M.screening as string, { excluded: q.exclude === false ? 'none: exclusion was switched off' : 'flat line, lost signal, ≥ 1 % of a window clipped, severe movement' });
+    if (screening) blocks.push({ type: 'paragraph', text: screening });
+  }
   const pcts = (get('percentiles', 'apdf.percentiles') as number[] | undefined) ?? [10, 50, 90];
   blocks.push({ type: 'paragraph', text: fillRequired(M.percentiles, { percentiles: pcts.map((p) => `${formatSetting(p)}th`).join(', ') }) });
   cite('hyndman1996');

@@ -73,7 +73,8 @@ describe('renderReport(results)', () => {
 
   it('renderReport(results) generates the methods text from results.settings', () => {
     const all = runs.flat().join(' ');
-    expect(all).toContain('mains notch at 50 Hz; band-pass filter (Butterworth, order 4, 20–450 Hz, applied forward and backward');
+    expect(all).toContain('mains notch at 50 Hz (applied forward and backward with the band-pass, so its response is squared); band-pass filter (Butterworth, order 4, 20–450 Hz, applied forward and backward');
+    expect(all).toContain('Spans judged unusable (flat line, lost signal');
     expect(all).toContain('RMS envelope over a 0.1 s moving window, evaluated at 20 Hz');
     expect(all).toContain('the highest 0.5 s moving RMS across the maximal reference contractions');
     expect(all).toContain(texts.headings.referenceValues);
