@@ -8,8 +8,9 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { bufferIO } from '../../lib/cli/cli-io.js';
 import { main } from '../../lib/cli/main.js';
+import { FIXTURE_EDF, fixtureJobYaml } from '../support/fixture-job.js';
 
-const fixture = new URL('../../../shared/fixtures/edf/emg_3sig.edf', import.meta.url).pathname;
+const fixture = FIXTURE_EDF;
 
 function job(body: string): { dir: string; job: string } {
   const dir = mkdtempSync(join(tmpdir(), 'shiftload-analyze-'));
@@ -18,21 +19,7 @@ function job(body: string): { dir: string; job: string } {
   return { dir, job: join(dir, 'job.yaml') };
 }
 
-const GOOD = `format: shiftload-job/1
-title: fixture
-settings:
-  band_hz: [20, 200]
-workers:
-  - id: W1
-    reference: { file: rec.edf, annotation: "reference contraction" }
-    rest: { file: rec.edf, annotation: "break" }
-    recordings:
-      - file: rec.edf
-        condition: a
-        channels:
-          - { signal: "EMG R trapezius", muscle: "upper trapezius, right" }
-        segments: annotations
-`;
+const GOOD = fixtureJobYaml({ title: 'fixture' });
 
 async function run(args: string[]) {
   const io = bufferIO();

@@ -2,6 +2,7 @@
 // each damaged input gives exit 2 and one stderr line naming the file and the field, line or byte —
 // or, when the data can still be used, exit 0 with a finding in results.json. Classes covered by
 // other tests are listed in that catalogue with the test file that covers them.
+import { fixtureJobYaml } from '../support/fixture-job.js';
 import { copyFileSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -295,21 +296,7 @@ describe('catalogue: usable data gives findings, not errors (analyze --no-report
   it('clipped samples give a clipping finding (emg_3sig.edf, EDFlib: 16 samples at digital max)', async () => {
     const d = caseDir();
     copyFileSync(join(SHARED_EDF_DIR, 'emg_3sig.edf'), join(d, 'rec.edf'));
-    const text = `format: shiftload-job/1
-title: clipping
-settings:
-  band_hz: [20, 200]
-workers:
-  - id: W1
-    reference: { file: rec.edf, annotation: "reference contraction" }
-    rest: { file: rec.edf, annotation: "break" }
-    recordings:
-      - file: rec.edf
-        condition: a
-        channels:
-          - { signal: "EMG R trapezius", muscle: "upper trapezius, right" }
-        segments: annotations
-`;
+    const text = fixtureJobYaml({ title: 'clipping' });
     const r = await analyze(d, text);
     // 'clipped' from the quality screening (per span), 'clipping' from the analysis when screening is off
     expect(codes(r).some((c) => c === 'clipped' || c === 'clipping'), JSON.stringify(codes(r))).toBe(true);

@@ -7,29 +7,14 @@ import { describe, expect, it } from 'vitest';
 import { loadJob } from '../../lib/job/load-job.js';
 import { runStudy } from '../../lib/study/run-study.js';
 import { stableJson } from '../../lib/study/stable-json.js';
+import { FIXTURE_EDF, fixtureJobYaml } from '../support/fixture-job.js';
 
-const fixture = new URL('../../../shared/fixtures/edf/emg_3sig.edf', import.meta.url).pathname;
+const fixture = FIXTURE_EDF;
 
 function makeJob(settings = ''): string {
   const dir = mkdtempSync(join(tmpdir(), 'shiftload-run-'));
   copyFileSync(fixture, join(dir, 'rec.edf'));
-  writeFileSync(join(dir, 'job.yaml'), `format: shiftload-job/1
-title: fixture study
-settings:
-  band_hz: [20, 200]
-${settings}
-workers:
-  - id: W1
-    reference: { file: rec.edf, annotation: "reference contraction" }
-    rest: { file: rec.edf, annotation: "break" }
-    recordings:
-      - file: rec.edf
-        condition: a
-        channels:
-          - { signal: "EMG R trapezius", muscle: "upper trapezius, right" }
-          - { signal: "EMG R forearm", muscle: "forearm extensors, right" }
-        segments: annotations
-`);
+  writeFileSync(join(dir, 'job.yaml'), fixtureJobYaml({ settings, channels: [['EMG R trapezius', 'upper trapezius, right'], ['EMG R forearm', 'forearm extensors, right']] }));
   return join(dir, 'job.yaml');
 }
 
