@@ -4,29 +4,19 @@
 import type { CommandModule } from 'yargs';
 import type { WithIO } from './cli-io.js';
 import { openRecording, type OpenOptions } from '../io/open-recording.js';
-import type { Annotation, RecordingInfo } from '../io/recording.js';
+import type { Annotation, RecordingInfo, SignalInfo } from '../io/recording.js';
 import { formatQuality } from '../quality/format-quality.js';
 import { screenRecording } from '../quality/screen-recording.js';
 
-export interface InspectSignal {
-  index: number;
-  label: string;
-  unit: string;
-  rate_hz: number;
-  physical_min: number;
-  physical_max: number;
+/** One signal as inspect reports it: the header fields plus clipping counts. */
+export interface InspectSignal extends Omit<SignalInfo, 'digital_min' | 'digital_max'> {
   /** null for CSV (no digital values) */
   digital_min: number | null;
   digital_max: number | null;
-  prefilter: string;
-  transducer: string;
-  samples: number;
   clipped_low: number;
   clipped_high: number;
   /** (clipped_low + clipped_high) / samples */
   clipped_share: number;
-  /** CSV only: empty cells read as NaN */
-  nan_count?: number;
 }
 
 export interface InspectResult {
