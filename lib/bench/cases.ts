@@ -81,7 +81,7 @@ export const benchCases: BenchCase[] = [
 /**
  * A job over the bench file: one worker, all four channels, MVE from the first 60 s, three task segments splitting the rest of the recording.
  */
-function benchJob(file: string, duration_s: number): string {
+function benchJob(file: string, duration_s: number, core: boolean): string {
   const dir = mkdtempSync(join(tmpdir(), 'shiftload-bench-job-'));
   const third = Math.floor((duration_s - 120) / 3);
   const seg = (label: string, a: number, b: number) => `          - { label: ${label}, start_s: ${a}, end_s: ${b} }`;
@@ -89,7 +89,7 @@ function benchJob(file: string, duration_s: number): string {
     'format: shiftload-job/1',
     'title: bench',
     // the bench signal is stationary, so its rest span is as loud as its reference: no noise correction
-    'settings: { noise_correction: false }',
+    core ? 'settings: { noise_correction: false, fatigue: { enabled: false }, quality: { enabled: false } }' : 'settings: { noise_correction: false }',
     'workers:',
     '  - id: B1',
     `    reference: { file: ${JSON.stringify(file)}, start_s: 0, end_s: 60 }`,
@@ -105,15 +105,17 @@ function benchJob(file: string, duration_s: number): string {
   return join(dir, 'job.yaml');
 }
 
-for (const jobs of [1, 2]) benchCases.push({
-  name: jobs === 1 ? 'analyze' : `analyze-j${jobs}`,
-  describe: `shiftload analyze --jobs ${jobs}: zero-phase 30–400 Hz band-pass, 0.1-s RMS at 20 Hz, MVE from 60 s, 3 task segments (results only)`,
+// `analyze`: the default analysis (quality screening and fatigue epochs on); `analyze-core`: the
+// issue's pipeline alone (band-pass, envelope, MVE, APDF, gaps), with screening and fatigue off.
+for (const core of [false, true]) for (const jobs of [1, 2]) benchCases.push({
+  name: `analyze${core ? '-core' : ''}${jobs === 1 ? '' : `-j${jobs}`}`,
+  describe: `shiftload analyze --jobs ${jobs}: zero-phase 30–400 Hz band-pass, 0.1-s RMS at 20 Hz, MVE from 60 s, 3 task segments${core ? ', quality screening and fatigue off' : ', with quality screening and fatigue epochs'} (results only)`,
   async run(file) {
     const { bytes, samples } = await fileInfo(file);
     const rec = await openRecording(file);
     const duration = rec.info.duration_s;
     await rec.close();
-    const jobPath = benchJob(file, duration);
+    const jobPath = benchJob(file, duration, core);
     try {
       const study = await loadJob(jobPath);
       const res = await runStudy(study, { jobs });

@@ -10,7 +10,7 @@ import { dspMsg } from '../messages.js';
 import { butter } from './butter.js';
 import { mainsNotch } from './mains-notch.js';
 import { sosConcat, type Sos } from './sos.js';
-import { ZeroPhaseFilter } from './zero-phase-filter.js';
+import { ZeroPhaseFilter, type OutputSink } from './zero-phase-filter.js';
 
 /** Filter settings shared by BandFilter and EnvelopePipeline. */
 export interface BandFilterOptions {
@@ -98,6 +98,7 @@ export class BandFilter {
   private nOut = 0;
   /** Pending NaN runs [start, end) in sample indices, oldest first. */
   private runs: number[] = [];
+  private sink: OutputSink | null = null;
 
   constructor(options: BandFilterOptions) {
     const o = resolve(options);
@@ -112,13 +113,44 @@ export class BandFilter {
 
   /** Feed the next chunk (not modified). Returns the filtered samples now final. */
   push(x: ArrayLike<number>): Float64Array {
+    const parts: Float64Array[] = [];
+    this.pushTo(x, (y) => parts.push(y.slice()));
+    return joinParts(parts);
+  }
+
+  /**
+   * Feed the next chunk (not modified) and hand the filtered samples now final to `sink`, in
+   * order, as views valid only during the call (no copies: the streaming analysis' path).
+   */
+  pushTo(x: ArrayLike<number>, sink: OutputSink): void {
+    this.sink = sink;
+    this.zp.pushTo(this.cleaned(x), this.restoring);
+    this.sink = null;
+  }
+
+  /** End of stream: the remaining filtered samples. */
+  flush(): Float64Array {
+    const parts: Float64Array[] = [];
+    this.flushTo((y) => parts.push(y.slice()));
+    return joinParts(parts);
+  }
+
+  /** End of stream: hand the remaining filtered samples to `sink` (as pushTo). */
+  flushTo(sink: OutputSink): void {
+    this.sink = sink;
+    this.zp.flushTo(this.restoring);
+    this.sink = null;
+  }
+
+  /** The chunk with NaN replaced by the last valid value (the chunk itself when it has none). */
+  private cleaned(x: ArrayLike<number>): ArrayLike<number> {
     // fast path: no NaN in the chunk, filter it as it is (ZeroPhaseFilter copies, never mutates)
     let hasNaN = false;
     for (let i = 0; i < x.length; i++) if (x[i] !== x[i]) { hasNaN = true; break; }
     if (!hasNaN) {
       if (x.length > 0) this.last = x[x.length - 1];
       this.nIn += x.length;
-      return this.restoreNaN(this.zp.push(x));
+      return x;
     }
     const clean = new Float64Array(x.length);
     let last = this.last;
@@ -134,15 +166,16 @@ export class BandFilter {
     }
     this.last = last;
     this.nIn += x.length;
-    return this.restoreNaN(this.zp.push(clean));
+    return clean;
   }
 
-  /** End of stream: the remaining filtered samples. */
-  flush(): Float64Array {
-    return this.restoreNaN(this.zp.flush());
-  }
+  /** Put NaN back where the input had it, then pass the run on. */
+  private readonly restoring: OutputSink = (y) => {
+    this.restoreNaN(y);
+    this.sink!(y);
+  };
 
-  private restoreNaN(y: Float64Array): Float64Array {
+  private restoreNaN(y: Float64Array): void {
     const start = this.nOut, end = start + y.length;
     const runs = this.runs;
     let r = 0;
@@ -154,6 +187,15 @@ export class BandFilter {
     }
     if (r > 0) runs.splice(0, r);
     this.nOut = end;
-    return y;
   }
+}
+
+function joinParts(parts: Float64Array[]): Float64Array {
+  if (parts.length === 1) return parts[0]!;
+  let n = 0;
+  for (const p of parts) n += p.length;
+  const r = new Float64Array(n);
+  let at = 0;
+  for (const p of parts) { r.set(p, at); at += p.length; }
+  return r;
 }

@@ -8,9 +8,10 @@
 //   (numpy's "same" alignment with a shrinking divisor: moving_rms.json `centered_same_shrinking`).
 //   For N input samples there are as many envelope samples as there are k with c_k < N.
 // NaN: an envelope sample whose window contains a NaN input is NaN (NaN marks invalid time).
-// Sums: a running sum of squares, re-summed directly from the buffered squares whenever the
-// window has moved by W samples since the last direct sum, so rounding error never builds up
-// over a long recording (each value is within a few W·ε of the direct sum, even on a large offset).
+// Sums: squares are summed per piece between consecutive window boundaries (starts and ends),
+// which is the only per-sample work; a window's sum is the sum of its pieces, kept as a running
+// sum over pieces and re-summed directly whenever the window has moved by W samples, so rounding
+// error never builds up over a long recording (each value is within a few W·ε of the direct sum).
 import { UsageError } from '../errors.js';
 import { dspMsg } from '../messages.js';
 import { checkSamplingRate } from './butter.js';
@@ -61,18 +62,29 @@ export class RmsEnvelope {
   /** Window length in samples. */
   readonly window: number;
   private readonly half: number;
-  private readonly sq: Float64Array;
-  private readonly nan: Uint8Array;
+  // Closed pieces: start sample and sum of squares, in a ring (from wFirst, the oldest still needed, to tail).
+  private readonly segPos: Float64Array;
+  private readonly segSum: Float64Array;
   private readonly mask: number;
-  private readonly maxHop: number;
+  private tail = 0;
+  /** The open piece: its start and its sum of squares so far. */
+  private segStart = 0;
+  private acc = 0;
+  /** Samples pushed; the next boundary (a window start or end), > n. */
   private n = 0;
+  private nextBoundary = 0;
+  /** Next envelope sample (its window ends next) and next window start not yet passed. */
   private k = 0;
-  private nextEnd: number;
-  private ws = 0;
-  private we = 0;
-  private sum = 0;
-  private nanCount = 0;
+  private js = 0;
+  /** Running window sum over pieces [wFirst, wEnd) of the ring; start of the last direct sum. */
+  private wFirst = 0;
+  private wEnd = 0;
+  private wSum = 0;
   private lastExact = -Infinity;
+  /** Index of the last NaN input sample (−1: none yet); it adds nothing to the sums. */
+  private lastNan = -1;
+  private out = new Float64Array(64);
+  private readonly maxHop: number;
   private flushed = false;
 
   /** @throws UsageError for fs ≤ 0, a window under one sample, or rate_hz outside (0, fs] */
@@ -87,11 +99,15 @@ export class RmsEnvelope {
     this.window = w;
     this.half = Math.floor(w / 2);
     this.maxHop = Math.ceil(fs / rate_hz) + 1;
-    const cap = nextPow2(w + this.maxHop + 2);
-    this.sq = new Float64Array(cap);
-    this.nan = new Uint8Array(cap);
+    // pieces alive at once: those of one window (≤ 2 boundaries per envelope step within W
+    // samples, and at most W) plus the open one and slack
+    const hopMin = Math.max(1, Math.floor(fs / rate_hz) - 1);
+    const cap = nextPow2(Math.min(w, 2 * Math.ceil(w / hopMin)) + 8);
+    this.segPos = new Float64Array(cap);
+    this.segSum = new Float64Array(cap);
     this.mask = cap - 1;
-    this.nextEnd = envelopeCentre(0, fs, rate_hz) - this.half + w;
+    while (this.startOf(this.js) <= 0) this.js++;
+    this.nextBoundary = Math.min(this.startOf(this.js), this.endOf(0));
   }
 
   /** Envelope samples produced so far (the index of the next one). */
@@ -99,26 +115,48 @@ export class RmsEnvelope {
     return this.k;
   }
 
+  /** First sample of window j, clipped at 0. */
+  private startOf(j: number): number {
+    return Math.max(0, envelopeCentre(j, this.fs, this.rateHz) - this.half);
+  }
+
+  /** One past the last sample of window j (unclipped). */
+  private endOf(j: number): number {
+    return envelopeCentre(j, this.fs, this.rateHz) - this.half + this.window;
+  }
+
   /** Feed input samples (any unit; the envelope has the same unit). Returns completed envelope samples. */
   push(x: ArrayLike<number>): Float64Array {
-    const out = new Float64Array(Math.ceil(x.length / Math.max(1, this.maxHop - 2)) + 2);
-    let m = 0;
-    const sq = this.sq, nan = this.nan, mask = this.mask;
-    let n = this.n;
-    let nextEnd = this.nextEnd;
-    for (let i = 0; i < x.length; i++) {
-      const v = x[i];
-      const j = n & mask;
-      if (v === v) { sq[j] = v * v; nan[j] = 0; } else { sq[j] = 0; nan[j] = 1; }
-      n++;
-      if (n === nextEnd) {
-        this.n = n;
-        out[m++] = this.emit(n);
-        nextEnd = this.nextEnd;
+    return this.pushView(x).slice();
+  }
+
+  /**
+   * As push, but the completed envelope samples are returned as a view of an internal buffer that
+   * the next pushView/push overwrites (the streaming pass copies them out at once: no allocation).
+   */
+  pushView(x: ArrayLike<number>): Float64Array {
+    const need = Math.ceil(x.length / Math.max(1, this.maxHop - 2)) + 2;
+    if (this.out.length < need) this.out = new Float64Array(need);
+    const len = x.length;
+    let m = 0, i = 0;
+    while (i < len) {
+      // sum squares up to the next window start or end: the only inner loop per sample
+      const base = this.n - i;
+      const stop = Math.min(len, i + (this.nextBoundary - this.n));
+      let acc = this.acc, lastNan = this.lastNan;
+      for (; i < stop; i++) {
+        const v = x[i];
+        if (v === v) acc += v * v;
+        else lastNan = base + i;
+      }
+      this.acc = acc;
+      this.lastNan = lastNan;
+      this.n = base + i;
+      if (this.n === this.nextBoundary) {
+        if (this.boundary()) this.out[m++] = this.emit();
       }
     }
-    this.n = n;
-    return out.subarray(0, m).slice();
+    return this.out.subarray(0, m);
   }
 
   /** End of stream: the remaining envelope samples (windows clipped to the data). */
@@ -127,31 +165,60 @@ export class RmsEnvelope {
     this.flushed = true;
     const total = envelopeSampleCount(this.n, this.fs, this.rateHz);
     const out = new Float64Array(Math.max(0, total - this.k));
+    if (this.n > this.segStart) this.closePiece();
     let m = 0;
-    while (this.k < total) out[m++] = this.emit(this.n);
+    while (this.k < total) out[m++] = this.emit();
     return out;
   }
 
-  /** Compute envelope sample k over [max(0, s_k), min(limit, e_k)) and advance k. */
-  private emit(limit: number): number {
-    const s = envelopeCentre(this.k, this.fs, this.rateHz) - this.half;
-    const a = Math.max(0, s), b = Math.min(limit, s + this.window);
-    const sq = this.sq, nan = this.nan, mask = this.mask;
-    if (a >= this.we || a - this.lastExact >= this.window) {
-      let sum = 0, bad = 0;
-      for (let i = a; i < b; i++) { sum += sq[i & mask]; bad += nan[i & mask]; }
-      this.sum = sum; this.nanCount = bad; this.lastExact = a;
+  /** Close the open piece at n (n is a boundary); true when window k ends here. */
+  private boundary(): boolean {
+    const n = this.n;
+    this.closePiece();
+    while (this.startOf(this.js) <= n) this.js++;
+    const ends = this.endOf(this.k) === n;
+    this.nextBoundary = Math.min(this.startOf(this.js), this.endOf(ends ? this.k + 1 : this.k));
+    return ends;
+  }
+
+  private closePiece(): void {
+    if (this.tail - this.wFirst > this.mask) throw new Error('RmsEnvelope: piece ring too small'); // sized in the constructor; never expected
+    const t = this.tail & this.mask;
+    this.segPos[t] = this.segStart;
+    this.segSum[t] = this.acc;
+    this.tail++;
+    this.segStart = this.n;
+    this.acc = 0;
+  }
+
+  /**
+   * Envelope sample k over [max(0, s_k), n) — its window end, or the end of the data at flush —
+   * and advance k. The window sum runs over pieces (add those closed since, drop those before the
+   * start), summed afresh whenever the window has moved by W samples since the last direct sum,
+   * so rounding error never builds up over a long recording.
+   */
+  private emit(): number {
+    const a = this.startOf(this.k), b = this.n;
+    const pos = this.segPos, sums = this.segSum, mask = this.mask;
+    let first = this.wFirst;
+    while (first < this.tail && pos[first & mask] < a) first++;
+    let sum: number;
+    if (a - this.lastExact >= this.window || first >= this.wEnd) {
+      sum = 0;
+      for (let p = first; p < this.tail; p++) sum += sums[p & mask];
+      this.lastExact = a;
     } else {
-      let sum = this.sum, bad = this.nanCount;
-      for (let i = this.we; i < b; i++) { sum += sq[i & mask]; bad += nan[i & mask]; }
-      for (let i = this.ws; i < a; i++) { sum -= sq[i & mask]; bad -= nan[i & mask]; }
-      this.sum = sum; this.nanCount = bad;
+      sum = this.wSum;
+      for (let p = this.wFirst; p < first; p++) sum -= sums[p & mask];
+      for (let p = this.wEnd; p < this.tail; p++) sum += sums[p & mask];
     }
-    this.ws = a; this.we = b;
+    this.wFirst = first;
+    this.wEnd = this.tail;
+    this.wSum = sum;
+    // later windows start no earlier: pieces before `first` are not needed again (the ring reuses them)
     this.k++;
-    this.nextEnd = envelopeCentre(this.k, this.fs, this.rateHz) - this.half + this.window;
-    if (this.nanCount > 0) return NaN;
-    const mean = this.sum / (b - a);
+    if (this.lastNan >= a) return NaN;
+    const mean = sum / (b - a);
     return mean > 0 ? Math.sqrt(mean) : 0;
   }
 }

@@ -22,6 +22,9 @@ import { sosfiltZi } from './sosfilt-zi.js';
 import { defaultPadlen } from './sosfiltfilt.js';
 import { zeroPhaseOverlap } from './zero-phase-overlap.js';
 
+/** Receiver of filtered samples: a view valid only during the call. */
+export type OutputSink = (y: Float64Array) => void;
+
 export interface ZeroPhaseFilterOptions {
   /** Edge extension at the true start and end: 'odd' (scipy's default) or 'none'. @default 'odd' */
   padtype?: 'odd' | 'none';
@@ -64,6 +67,7 @@ export class ZeroPhaseFilter {
   private nIn = 0;
   private nFed = 0;
   private out: Float64Array[] = [];
+  private sink: OutputSink | null = null;
   private flushed = false;
 
   constructor(sos: Sos, options: ZeroPhaseFilterOptions = {}) {
@@ -86,7 +90,18 @@ export class ZeroPhaseFilter {
 
   /** Feed the next chunk (not modified); returns the outputs that are final now. */
   push(x: ArrayLike<number>): Float64Array {
+    this.pushTo(x, null);
+    return this.take();
+  }
+
+  /**
+   * Feed the next chunk (not modified) and hand each run of outputs that becomes final to `sink`,
+   * in order, as a view of an internal buffer that is valid only during the call (the sink may
+   * write into it). With a null sink the outputs are queued for push()/flush() to return.
+   */
+  pushTo(x: ArrayLike<number>, sink: OutputSink | null): void {
     if (this.flushed) throw new UsageError(dspMsg.pushAfterFlush());
+    this.sink = sink;
     const n = x.length;
     // keep the last padlen + 1 raw samples for the odd extension at the end
     const rl = this.recent.length;
@@ -101,15 +116,22 @@ export class ZeroPhaseFilter {
       if (this.headCount === this.head.length) this.start();
     }
     if (i < n) this.feed(x, i, n, true);
-    return this.take();
+    this.sink = null;
   }
 
   /** End of stream: the remaining outputs (backward pass from the true end, as sosfiltfilt). */
   flush(): Float64Array {
-    if (this.flushed) return new Float64Array(0);
+    this.flushTo(null);
+    return this.take();
+  }
+
+  /** End of stream: hand the remaining outputs to `sink` (as pushTo). */
+  flushTo(sink: OutputSink | null): void {
+    if (this.flushed) return;
     this.flushed = true;
     const N = this.nIn;
-    if (N === 0) return new Float64Array(0);
+    if (N === 0) return;
+    this.sink = sink;
     if (!this.started) {
       this.pad = Math.min(this.padlen, N - 1);
       this.start();
@@ -128,7 +150,7 @@ export class ZeroPhaseFilter {
     sosfiltReverseInPlace(this.sos, this.bstate, this.scratch, 0, this.bufLen);
     this.emit(this.bufStart, this.bufLen);
     this.bufLen = 0;
-    return this.take();
+    this.sink = null;
   }
 
   /** Odd extension of the head and the first samples into the forward pass. */
@@ -177,10 +199,13 @@ export class ZeroPhaseFilter {
   /** Queue scratch[0..count) (extended positions bufStart…) clipped to the real samples. */
   private emit(extStart: number, count: number): void {
     const lo = Math.max(extStart, this.pad), hi = Math.min(extStart + count, this.pad + this.nFed);
-    if (hi > lo) this.out.push(this.scratch.slice(lo - extStart, hi - extStart));
+    if (hi <= lo) return;
+    if (this.sink !== null) this.sink(this.scratch.subarray(lo - extStart, hi - extStart));
+    else this.out.push(this.scratch.slice(lo - extStart, hi - extStart));
   }
 
   private take(): Float64Array {
+    if (this.out.length === 0) return new Float64Array(0);
     if (this.out.length === 1) { const r = this.out[0]; this.out = []; return r; }
     let n = 0;
     for (const o of this.out) n += o.length;

@@ -7,6 +7,8 @@ import { percentileSorted, sortedValid } from './percentile.js';
 export interface ApdfOptions {
   /** Probability levels in percent. @default [10, 50, 90] (DEFAULTS.percentiles) */
   percentiles?: readonly number[];
+  /** sortedValid(envelope), when the caller already has it (saves a sort). @default computed */
+  sorted?: Float64Array;
 }
 
 export interface ApdfResult {
@@ -33,7 +35,7 @@ export interface ApdfResult {
  */
 export function apdf(envelope: ArrayLike<number>, options: ApdfOptions = {}): ApdfResult {
   const q = [...(options.percentiles ?? DEFAULTS.percentiles)];
-  const s = sortedValid(envelope);
+  const s = options.sorted ?? sortedValid(envelope);
   const levels = q.map((p) => {
     const v = percentileSorted(s, p);
     return Number.isNaN(v) ? null : v;
@@ -51,7 +53,14 @@ export function apdf(envelope: ArrayLike<number>, options: ApdfOptions = {}): Ap
  * @example apdfCurve(Float64Array.of(0, 100))[25] // 25
  */
 export function apdfCurve(envelope: ArrayLike<number>): number[] {
-  const s = sortedValid(envelope);
+  return apdfCurveSorted(sortedValid(envelope));
+}
+
+/**
+ * apdfCurve of values already sorted ascending and free of NaN (sortedValid's output).
+ * @example apdfCurveSorted(sortedValid(env))
+ */
+export function apdfCurveSorted(s: Float64Array): number[] {
   if (s.length === 0) return [];
   const out: number[] = new Array(101);
   for (let p = 0; p <= 100; p++) out[p] = percentileSorted(s, p);

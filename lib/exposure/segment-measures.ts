@@ -9,6 +9,8 @@ import { sustainedActivity } from './sustained-activity.js';
 export interface SegmentMeasuresOptions {
   /** Envelope rate in Hz (required). */
   rate_hz: number;
+  /** sortedValid(envelope), when the caller already has it (saves a sort). @default computed */
+  sorted?: Float64Array;
   /** APDF levels in %. @default [10, 50, 90] */
   percentiles?: readonly number[];
   /** Gap/rest threshold in the envelope's unit (convert with thresholdToRve for %RVE). @default 0.5 */
@@ -48,7 +50,7 @@ export interface SegmentMeasures {
  */
 export function segmentMeasures(envelope: ArrayLike<number>, options: SegmentMeasuresOptions): SegmentMeasures {
   const gap_threshold = options.gap_threshold ?? DEFAULTS.gap_threshold;
-  const a = apdf(envelope, { percentiles: options.percentiles ?? DEFAULTS.percentiles });
+  const a = apdf(envelope, { percentiles: options.percentiles ?? DEFAULTS.percentiles, sorted: options.sorted });
   const g = restGaps(envelope, {
     rate_hz: options.rate_hz, threshold: gap_threshold, min_gap_s: options.min_gap_s ?? DEFAULTS.min_gap_s,
     max_gap_s: options.max_gap_s === undefined ? DEFAULTS.max_gap_s : options.max_gap_s,

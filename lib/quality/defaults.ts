@@ -7,6 +7,12 @@
 /** Every setting of the quality screening. */
 export interface QualitySettings {
   /**
+   * Run the screening (a tap in the analysis' single pass; its spectra cost about a third of the
+   * analysis time). false: no quality findings, nothing excluded, clipping still counted.
+   * @default true
+   */
+  enabled: boolean;
+  /**
    * Leave spans judged unusable (flat line, lost signal, heavy clipping, severe low-frequency
    * artifact) out of the statistics (their envelope becomes NaN). false keeps every sample and
    * only reports findings.
@@ -63,6 +69,7 @@ export interface QualitySettings {
 
 /** The one default of every quality setting (frozen; copy before changing). */
 export const QUALITY_DEFAULTS: Readonly<QualitySettings> = Object.freeze({
+  enabled: true,
   exclude: true,
   window_s: 1,
   spectral_window_s: 2,
@@ -97,6 +104,7 @@ export interface QualitySettingDescription {
 
 /** Unit, meaning and source of every quality setting (defaults from QUALITY_DEFAULTS). */
 export const QUALITY_SETTINGS_TABLE: readonly QualitySettingDescription[] = Object.freeze([
+  { key: 'enabled', unit: '', meaning: 'Run the signal-quality screening; false skips every check below (clipping is still counted) and excludes nothing.', source: 'tool choice' },
   { key: 'exclude', unit: '', meaning: 'Leave unusable spans (flat line, lost signal, heavy clipping, severe low-frequency artifact) out of the statistics; false only reports them.', source: 'tool choice, no source' },
   { key: 'window_s', unit: 's', meaning: 'Window of the clipping, flat-line and lost-signal checks.', source: 'tool choice, no source' },
   { key: 'spectral_window_s', unit: 's', meaning: 'Window of the mains and low-frequency checks (Welch spectrum, Hann segments of about 0.5 s, no overlap, band-normalized before averaging).', source: 'tool choice, no source' },

@@ -4,6 +4,7 @@ import { QUALITY_DEFAULTS, QUALITY_SETTINGS_TABLE, type QualitySettings } from '
 
 /** JSON types and ranges of each quality setting. */
 const TYPES: Record<keyof QualitySettings, Record<string, unknown>> = {
+  enabled: { type: 'boolean' },
   exclude: { type: 'boolean' },
   window_s: { type: 'number', exclusiveMinimum: 0, maximum: 60 },
   spectral_window_s: { type: 'number', exclusiveMinimum: 0, maximum: 60 },

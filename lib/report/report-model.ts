@@ -340,6 +340,8 @@ function recordedSeconds(rows: ResultRow[]): number {
 
 function qualitySentence(results: StudyResults, texts: ReportTexts, recordedS: number): string {
   const f = results.findings;
+  const off = (results.settings.quality as { enabled?: boolean } | undefined)?.enabled === false;
+  if (off) return f.length ? `${texts.t.qualityOff} ${fillRequired(texts.t.qualityOffFindings, { n: f.length })}` : texts.t.qualityOff;
   if (!f.length) return texts.t.qualityNone;
   // excluded time: per recording×signal from the "all" rows, averaged over channels of a recording
   let total = 0, excluded = 0;
@@ -516,8 +518,9 @@ function methodsBlocks(results: StudyResults, texts: ReportTexts, cite: (...k: s
   blocks.push({ type: 'paragraph', text: fillRequired(M.pipeline, vars) + ' ' + M.sameChain });
   if (noiseOn !== false) cite('rds2019');
   cite('mathiassen1995');
-  const q = results.settings.quality as { exclude?: boolean } | undefined;
-  if (q) {
+  const q = results.settings.quality as { exclude?: boolean; enabled?: boolean } | undefined;
+  if (q?.enabled === false) blocks.push({ type: 'paragraph', text: t.qualityOff });
+  else if (q) {
     const screening = fillTemplate(M.screening as string, { excluded: q.exclude === false ? 'none: exclusion was switched off' : 'flat line, lost signal, ≥ 1 % of a window clipped, severe movement' });
     if (screening) blocks.push({ type: 'paragraph', text: screening });
   }
@@ -585,6 +588,7 @@ function accountingBlocks(results: StudyResults, texts: ReportTexts, workers: st
     { label: L.valid, width: 0.7, align: 'right' }, { label: L.excluded, width: 0.8, align: 'right' }, { label: L.why, width: 1.3 },
   ], rows: all.map((r) => [r.worker, r.condition, r.muscle, formatMinutes(rowSpan(r)), formatMinutes(r.valid_s), formatMinutes(Math.max(0, rowSpan(r) - r.valid_s)), why(r)]) });
   blocks.push({ type: 'heading', level: 2, text: t.headings.findings });
+  if ((results.settings.quality as { enabled?: boolean } | undefined)?.enabled === false) blocks.push({ type: 'paragraph', text: t.qualityOff });
   if (!results.findings.length) blocks.push({ type: 'paragraph', text: t.qualityNone });
   else blocks.push({ type: 'table', small: true, columns: [{ label: L.severity, width: 0.6 }, { label: L.where, width: 1.6 }, { label: L.message, width: 3 }],
     rows: results.findings.map((f) => [f.severity, whereText(f), `${f.code}: ${f.message}`]) });

@@ -6,7 +6,7 @@ export class GrowableFloat64 {
   private n = 0;
 
   constructor(initialCapacity = 4096) {
-    this.buf = new Float64Array(Math.max(16, initialCapacity));
+    this.buf = new Float64Array(Math.max(1, initialCapacity));
   }
 
   get length(): number {
@@ -31,6 +31,14 @@ export class GrowableFloat64 {
   /** A copy trimmed to the current length. */
   toArray(): Float64Array {
     return this.buf.slice(0, this.n);
+  }
+
+  /**
+   * The values as a view of the buffer, without a copy (for a buffer sized right up front, so
+   * little capacity is left unused); the GrowableFloat64 must not be used afterwards.
+   */
+  take(): Float64Array {
+    return this.buf.subarray(0, this.n);
   }
 
   private reserve(needed: number): void {

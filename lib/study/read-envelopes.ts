@@ -91,7 +91,7 @@ class ChannelState {
   filter: BandFilter;
   main: RmsEnvelope;
   second: RmsEnvelope | null;
-  readonly mainOut = new GrowableFloat64();
+  readonly mainOut: GrowableFloat64;
   readonly secondOut: GrowableFloat64 | null;
   clippedLow = 0;
   clippedHigh = 0;
@@ -99,8 +99,10 @@ class ChannelState {
 
   private scratch = new Float64Array(0);
 
-  constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest, private readonly tap: ChannelTap | null, readonly toMicrovolts: number) {
-    this.secondOut = req.second ? new GrowableFloat64() : null;
+  /** @param span_s length of the span read, s: the envelopes are sized for it up front */
+  constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest, private readonly tap: ChannelTap | null, readonly toMicrovolts: number, span_s: number) {
+    this.mainOut = new GrowableFloat64(secondsToSamples(span_s, req.envelope.rate_hz) + 1);
+    this.secondOut = req.second ? new GrowableFloat64(secondsToSamples(span_s, req.second.rate_hz) + 1) : null;
     this.filter = this.newFilter();
     this.main = new RmsEnvelope({ fs, window_s: req.envelope.window_s, rate_hz: req.envelope.rate_hz });
     this.second = req.second ? new RmsEnvelope({ fs, window_s: req.second.window_s, rate_hz: req.second.rate_hz }) : null;
@@ -122,22 +124,21 @@ class ChannelState {
     }
     if (this.tap?.raw) this.tap.raw(x, this.samples);
     this.samples += x.length;
-    const y = this.filter.push(x);
-    if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
-    this.mainOut.append(this.main.push(y));
-    if (this.second) this.secondOut!.append(this.second.push(y));
+    this.filter.pushTo(x, this.onFiltered);
   }
+
+  /** Filtered samples (a view into the filter's buffer, valid during the call) to the tap and envelopes. */
+  private readonly onFiltered = (y: Float64Array): void => {
+    if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
+    this.mainOut.append(this.main.pushView(y));
+    if (this.second) this.secondOut!.append(this.second.pushView(y));
+  };
 
   /** End the current continuous piece. */
   flush(): void {
-    const y = this.filter.flush();
-    if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
-    this.mainOut.append(this.main.push(y));
+    this.filter.flushTo(this.onFiltered);
     this.mainOut.append(this.main.flush());
-    if (this.second) {
-      this.secondOut!.append(this.second.push(y));
-      this.secondOut!.append(this.second.flush());
-    }
+    if (this.second) this.secondOut!.append(this.second.flush());
   }
 
   /** Start a new piece whose first sample lies at `offset_s` from the span start: pad NaN up to it. */
@@ -167,7 +168,7 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
     const start_s = Math.max(0, req.start_s);
     const fileEnd = info.end_s ?? info.duration_s; // EDF+D: clock time of the last record's end
     const end_s = req.end_s === null ? fileEnd : Math.min(fileEnd, req.end_s);
-    const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null, microvoltsPerUnit(info.signals[i]!.unit) ?? 1));
+    const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null, microvoltsPerUnit(info.signals[i]!.unit) ?? 1, end_s - start_s));
     let discontinuities = 0;
     let first = true;
     for await (const chunk of rec.read({ signals: req.signals, start_s, end_s })) {
@@ -193,12 +194,12 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
     const nMain = secondsToSamples(end_s - start_s, req.envelope.rate_hz);
     const channels = states.map((s, c) => {
       if (s.mainOut.length < nMain) s.mainOut.fill(NaN, nMain - s.mainOut.length);
-      const env = s.mainOut.toArray().subarray(0, Math.max(nMain, 0));
+      const env = s.mainOut.take().subarray(0, Math.max(nMain, 0));
       let second: Float64Array | null = null;
       if (req.second) {
         const n2 = secondsToSamples(end_s - start_s, req.second.rate_hz);
         if (s.secondOut!.length < n2) s.secondOut!.fill(NaN, n2 - s.secondOut!.length);
-        second = s.secondOut!.toArray().subarray(0, n2);
+        second = s.secondOut!.take().subarray(0, n2);
       }
       return {
         envelope: env, second, filter: s.filter.settings, rate_hz: req.envelope.rate_hz,

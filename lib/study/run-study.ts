@@ -2,7 +2,8 @@
 // from the rest span(s), reference value from the reference span(s), then every field recording
 // streamed once through the same filter and RMS envelope, noise-corrected, normalized and cut into
 // task segments, each summarized by the exposure measures. Produces plain results data.
-import { apdfCurve } from '../exposure/apdf.js';
+import { apdfCurveSorted } from '../exposure/apdf.js';
+import { sortedValid } from '../exposure/percentile.js';
 import { evaMatrix } from '../exposure/eva-matrix.js';
 import { noiseCorrect, noiseCorrectArray } from '../exposure/noise-correct.js';
 import { normalizeEnvelope } from '../exposure/normalize-envelope.js';
@@ -86,6 +87,21 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   const references: ReferenceValue[] = [];
   const filterByRate = new Map<number, unknown>();
 
+  // Every input file with its fingerprint. The SHA-256 of each file is started now and runs
+  // alongside the analysis (on a 460-MB recording it is a few tenths of a second of reading and
+  // hashing that would otherwise come after it); a rejection is seen where it is awaited.
+  const files = new Map<string, { shown: string; rate_hz: number | null }>();
+  for (const w of study.workers) for (const r of w.recordings) {
+    files.set(r.file, { shown: r.fileAsWritten, rate_hz: r.rate_hz });
+    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, { shown: sp.fileAsWritten, rate_hz: sp.rate_hz });
+  }
+  const hashes = new Map<string, Promise<string>>();
+  for (const abs of files.keys()) {
+    const h = sha256File(abs);
+    h.catch(() => undefined);
+    hashes.set(abs, h);
+  }
+
   // Work estimate for progress: every field recording once, plus reference and rest spans.
   let total = 0;
   for (const w of study.workers) for (const r of w.recordings) {
@@ -145,7 +161,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     second: s.normalize === 'task-peak' ? { window_s: s.reference_window_s, rate_hz: rate } : undefined,
     open: openOptions(rec.rate_hz),
     fatigue: fatigueTapSpec(channels.map((c) => rec.channels[c]!), fatigueSettings, s.band_hz),
-    quality: { settings: qualitySettings },
+    quality: qualitySettings.enabled ? { settings: qualitySettings } : null,
   });
   const queued = new Map<string, Promise<RecordingJobResult>>();
   if (jobs > 1) {
@@ -297,8 +313,10 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           if (sg.shortest_s < s.rms_window_s) {
             findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.shortest_s, s.rms_window_s) });
           }
+          const sorted = sortedValid(slice); // one sort serves the row's levels and the APDF curve
           const m = Number.isFinite(threshold)
             ? segmentMeasures(slice, {
+              sorted,
               rate_hz: rate, percentiles: s.percentiles, gap_threshold: threshold, min_gap_s: s.gap_min_s,
               max_gap_s: s.gap_max_s, rest_counts: s.rest_counts, sustained_threshold: threshold, sustained_min_s: s.sustained_min_s,
             })
@@ -327,7 +345,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           if (slice.length > 0) {
             const e = evaMatrix(slice, { rate_hz: rate, amplitude_edges: s.eva.amplitude_edges, duration_edges_s: s.eva.duration_edges_s });
             eva.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, amplitude_edges: e.amplitude_edges, duration_edges_s: e.duration_edges_s, percent_time: e.percent_time });
-            apdf.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, levels: apdfCurve(slice) });
+            apdf.push({ worker: worker.id, condition: rec.condition, muscle: ch.muscle, segment: sg.label, unit, levels: apdfCurveSorted(sorted) });
           }
         }
         if ((unit === '%MVE') && maxP90 > 100) {
@@ -367,18 +385,12 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     return n > 0 ? sum / n : null;
   }
 
-  // Every input file with its fingerprint.
-  const files = new Map<string, { shown: string; rate_hz: number | null }>();
-  for (const w of study.workers) for (const r of w.recordings) {
-    files.set(r.file, { shown: r.fileAsWritten, rate_hz: r.rate_hz });
-    for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, { shown: sp.fileAsWritten, rate_hz: sp.rate_hz });
-  }
   const inputs: StudyResults['inputs'] = [];
   for (const [abs, { shown, rate_hz }] of files) {
     const rec = await openRecording(abs, openOptions(rate_hz));
     const duration_s = rec.info.duration_s;
     await rec.close();
-    inputs.push({ file: shown, sha256: await sha256File(abs), duration_s });
+    inputs.push({ file: shown, sha256: await hashes.get(abs)!, duration_s });
   }
 
   return {
