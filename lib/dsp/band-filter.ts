@@ -10,7 +10,8 @@ import { dspMsg } from '../messages.js';
 import { butter } from './butter.js';
 import { mainsNotch } from './mains-notch.js';
 import { sosConcat, type Sos } from './sos.js';
-import { ZeroPhaseFilter, type OutputSink } from './zero-phase-filter.js';
+import { ZeroPhaseBank, type BankSink } from './zero-phase-bank.js';
+import type { OutputSink } from './zero-phase-filter.js';
 
 /** Filter settings shared by BandFilter and EnvelopePipeline. */
 export interface BandFilterOptions {
@@ -80,6 +81,109 @@ function resolve(o: BandFilterOptions): Required<BandFilterOptions> {
 }
 
 /**
+ * Streaming zero-phase notch + band-pass of several channels in lockstep (same settings, chunks
+ * of equal length): each channel as BandFilter, with the filter passes of channel pairs done
+ * together (ZeroPhaseBank). pushTo(chunks, sink) hands sink(channel, view) the samples now final.
+ * @throws UsageError for invalid cut-offs, order or mains settings (messages from butter/iirnotch)
+ * @example const bank = new BandFilterBank({ fs: 2000 }, 4); bank.pushTo(chunks, (c, y) => use(c, y)); bank.flushTo((c, y) => use(c, y));
+ */
+export class BandFilterBank {
+  readonly settings: BandFilterSettings;
+  readonly channels: number;
+  private readonly zp: ZeroPhaseBank;
+  // per channel: last valid input, outputs handed over, pending NaN runs [start, end) (oldest first)
+  private readonly last: Float64Array;
+  private readonly nOut: Float64Array;
+  private readonly runs: number[][];
+  private nIn = 0;
+  private sink: BankSink | null = null;
+  private readonly cleanedChunks: ArrayLike<number>[];
+
+  constructor(options: BandFilterOptions, channels: number, bankOptions: { simd?: boolean } = {}) {
+    const o = resolve(options);
+    const { sos, notchHz } = bandFilterSos(o);
+    this.zp = new ZeroPhaseBank(sos, channels, { simd: bankOptions.simd });
+    this.channels = channels;
+    this.last = new Float64Array(channels);
+    this.nOut = new Float64Array(channels);
+    this.runs = Array.from({ length: channels }, () => []);
+    this.cleanedChunks = new Array(channels);
+    this.settings = {
+      fs: o.fs, band_hz: [o.band_hz[0], o.band_hz[1]], order: o.order, mains_hz: o.mains_hz,
+      mains_harmonics: o.mains_harmonics, mains_q: o.mains_q, notch_hz: notchHz,
+      overlap_samples: this.zp.overlap, padlen_samples: this.zp.padlen,
+    };
+  }
+
+  /**
+   * Feed the next chunk of every channel (not modified; equal lengths) and hand the filtered
+   * samples now final to `sink`, in order per channel, as views valid only during the call.
+   * @param nanFree the caller guarantees no NaN in the chunks (skips the scan for them)
+   */
+  pushTo(xs: readonly ArrayLike<number>[], sink: BankSink, nanFree = false): void {
+    const n = xs.length > 0 ? xs[0]!.length : 0;
+    for (let c = 0; c < this.channels; c++) this.cleanedChunks[c] = this.cleaned(c, xs[c]!, nanFree);
+    this.nIn += n;
+    this.sink = sink;
+    this.zp.pushTo(this.cleanedChunks, this.restoring);
+    this.sink = null;
+    this.cleanedChunks.fill(EMPTY);
+  }
+
+  /** End of stream: hand the remaining filtered samples to `sink` (as pushTo). */
+  flushTo(sink: BankSink): void {
+    this.sink = sink;
+    this.zp.flushTo(this.restoring);
+    this.sink = null;
+  }
+
+  /** Channel c's chunk with NaN replaced by the last valid value (the chunk itself when it has none). */
+  private cleaned(c: number, x: ArrayLike<number>, nanFree: boolean): ArrayLike<number> {
+    // fast path: no NaN in the chunk, filter it as it is (ZeroPhaseBank never mutates its input)
+    if (nanFree || !mayHoldNaN(x)) {
+      if (x.length > 0) this.last[c] = x[x.length - 1]!;
+      return x;
+    }
+    const clean = new Float64Array(x.length);
+    let last = this.last[c]!;
+    const runs = this.runs[c]!;
+    const base = this.nIn;
+    for (let i = 0; i < x.length; i++) {
+      const v = x[i]!;
+      if (v === v) { clean[i] = v; last = v; continue; }
+      clean[i] = last;
+      const at = base + i;
+      if (runs.length > 0 && runs[runs.length - 1] === at) runs[runs.length - 1] = at + 1;
+      else runs.push(at, at + 1);
+    }
+    this.last[c] = last;
+    return clean;
+  }
+
+  /** Put NaN back where the input had it, then pass the run on. */
+  private readonly restoring: BankSink = (c, y) => {
+    this.restoreNaN(c, y);
+    this.sink!(c, y);
+  };
+
+  private restoreNaN(c: number, y: Float64Array): void {
+    const start = this.nOut[c]!, end = start + y.length;
+    const runs = this.runs[c]!;
+    let r = 0;
+    while (r < runs.length && runs[r]! < end) {
+      const a = Math.max(runs[r]!, start), b = Math.min(runs[r + 1]!, end);
+      for (let i = a; i < b; i++) y[i - start] = NaN;
+      if (runs[r + 1]! <= end) r += 2;
+      else break;
+    }
+    if (r > 0) runs.splice(0, r);
+    this.nOut[c] = end;
+  }
+}
+
+const EMPTY = new Float64Array(0);
+
+/**
  * Streaming zero-phase notch + band-pass of one channel. push(chunk) returns filtered samples that
  * are final (lagging the input by up to one block); flush() returns the rest; total output length
  * equals total input length, in the input's unit (µV).
@@ -91,24 +195,17 @@ function resolve(o: BandFilterOptions): Required<BandFilterOptions> {
  * @example const bf = new BandFilter({ fs: 2000, mains_hz: 50 }); out(bf.push(chunk)); out(bf.flush());
  */
 export class BandFilter {
-  readonly settings: BandFilterSettings;
-  private readonly zp: ZeroPhaseFilter;
-  private last = 0;
-  private nIn = 0;
-  private nOut = 0;
-  /** Pending NaN runs [start, end) in sample indices, oldest first. */
-  private runs: number[] = [];
+  private readonly bank: BandFilterBank;
   private sink: OutputSink | null = null;
+  private readonly toSink = (_c: number, y: Float64Array): void => this.sink!(y);
+  private readonly one: ArrayLike<number>[] = [EMPTY];
 
   constructor(options: BandFilterOptions) {
-    const o = resolve(options);
-    const { sos, notchHz } = bandFilterSos(o);
-    this.zp = new ZeroPhaseFilter(sos);
-    this.settings = {
-      fs: o.fs, band_hz: [o.band_hz[0], o.band_hz[1]], order: o.order, mains_hz: o.mains_hz,
-      mains_harmonics: o.mains_harmonics, mains_q: o.mains_q, notch_hz: notchHz,
-      overlap_samples: this.zp.overlap, padlen_samples: this.zp.padlen,
-    };
+    this.bank = new BandFilterBank(options, 1);
+  }
+
+  get settings(): BandFilterSettings {
+    return this.bank.settings;
   }
 
   /** Feed the next chunk (not modified). Returns the filtered samples now final. */
@@ -124,7 +221,9 @@ export class BandFilter {
    */
   pushTo(x: ArrayLike<number>, sink: OutputSink): void {
     this.sink = sink;
-    this.zp.pushTo(this.cleaned(x), this.restoring);
+    this.one[0] = x;
+    this.bank.pushTo(this.one, this.toSink);
+    this.one[0] = EMPTY;
     this.sink = null;
   }
 
@@ -138,56 +237,25 @@ export class BandFilter {
   /** End of stream: hand the remaining filtered samples to `sink` (as pushTo). */
   flushTo(sink: OutputSink): void {
     this.sink = sink;
-    this.zp.flushTo(this.restoring);
+    this.bank.flushTo(this.toSink);
     this.sink = null;
   }
+}
 
-  /** The chunk with NaN replaced by the last valid value (the chunk itself when it has none). */
-  private cleaned(x: ArrayLike<number>): ArrayLike<number> {
-    // fast path: no NaN in the chunk, filter it as it is (ZeroPhaseFilter copies, never mutates)
-    let hasNaN = false;
-    for (let i = 0; i < x.length; i++) if (x[i] !== x[i]) { hasNaN = true; break; }
-    if (!hasNaN) {
-      if (x.length > 0) this.last = x[x.length - 1];
-      this.nIn += x.length;
-      return x;
-    }
-    const clean = new Float64Array(x.length);
-    let last = this.last;
-    const runs = this.runs;
-    const base = this.nIn;
-    for (let i = 0; i < x.length; i++) {
-      const v = x[i];
-      if (v === v) { clean[i] = v; last = v; continue; }
-      clean[i] = last;
-      const at = base + i;
-      if (runs.length > 0 && runs[runs.length - 1] === at) runs[runs.length - 1] = at + 1;
-      else runs.push(at, at + 1);
-    }
-    this.last = last;
-    this.nIn += x.length;
-    return clean;
-  }
-
-  /** Put NaN back where the input had it, then pass the run on. */
-  private readonly restoring: OutputSink = (y) => {
-    this.restoreNaN(y);
-    this.sink!(y);
-  };
-
-  private restoreNaN(y: Float64Array): void {
-    const start = this.nOut, end = start + y.length;
-    const runs = this.runs;
-    let r = 0;
-    while (r < runs.length && runs[r] < end) {
-      const a = Math.max(runs[r], start), b = Math.min(runs[r + 1], end);
-      for (let i = a; i < b; i++) y[i - start] = NaN;
-      if (runs[r + 1] <= end) r += 2;
-      else break;
-    }
-    if (r > 0) runs.splice(0, r);
-    this.nOut = end;
-  }
+/**
+ * False when x certainly holds no NaN: a NaN anywhere makes the sum NaN (four partial sums keep
+ * the additions independent, so the scan runs at memory speed). True also for ±Infinity
+ * pairs, which the exact check that follows then tells apart.
+ */
+function mayHoldNaN(x: ArrayLike<number>): boolean {
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0, i = 0;
+  const n = x.length;
+  for (; i + 4 <= n; i += 4) { s0 += x[i]; s1 += x[i + 1]; s2 += x[i + 2]; s3 += x[i + 3]; }
+  for (; i < n; i++) s0 += x[i];
+  const s = s0 + s1 + s2 + s3;
+  if (s === s) return false;
+  for (let j = 0; j < n; j++) if (x[j] !== x[j]) return true;
+  return false;
 }
 
 function joinParts(parts: Float64Array[]): Float64Array {

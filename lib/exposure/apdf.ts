@@ -7,7 +7,7 @@ import { percentileSorted, sortedValid } from './percentile.js';
 export interface ApdfOptions {
   /** Probability levels in percent. @default [10, 50, 90] (DEFAULTS.percentiles) */
   percentiles?: readonly number[];
-  /** sortedValid(envelope), when the caller already has it (saves a sort). @default computed */
+  /** sortedValid(envelope) when the caller already has it, or rankedValid(envelope, levels including these). @default computed */
   sorted?: Float64Array;
 }
 
@@ -56,13 +56,17 @@ export function apdfCurve(envelope: ArrayLike<number>): number[] {
   return apdfCurveSorted(sortedValid(envelope));
 }
 
+/** The levels of the APDF curve, % (0, 1, …, 100). */
+export const APDF_CURVE_LEVELS: readonly number[] = Object.freeze(Array.from({ length: 101 }, (_, p) => p));
+
 /**
- * apdfCurve of values already sorted ascending and free of NaN (sortedValid's output).
+ * apdfCurve of values already sorted ascending and free of NaN (sortedValid's output, or
+ * rankedValid's for APDF_CURVE_LEVELS).
  * @example apdfCurveSorted(sortedValid(env))
  */
 export function apdfCurveSorted(s: Float64Array): number[] {
   if (s.length === 0) return [];
   const out: number[] = new Array(101);
-  for (let p = 0; p <= 100; p++) out[p] = percentileSorted(s, p);
+  for (let p = 0; p <= 100; p++) out[p] = percentileSorted(s, APDF_CURVE_LEVELS[p]!);
   return out;
 }

@@ -9,7 +9,7 @@ import { sustainedActivity } from './sustained-activity.js';
 export interface SegmentMeasuresOptions {
   /** Envelope rate in Hz (required). */
   rate_hz: number;
-  /** sortedValid(envelope), when the caller already has it (saves a sort). @default computed */
+  /** sortedValid(envelope) when the caller already has it, or rankedValid(envelope, levels including these). @default computed */
   sorted?: Float64Array;
   /** APDF levels in %. @default [10, 50, 90] */
   percentiles?: readonly number[];

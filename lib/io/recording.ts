@@ -91,6 +91,11 @@ export interface SignalChunk {
   clipped_low: Int32Array;
   /** Samples at the digital maximum, per requested signal, in this chunk (CSV: 0). */
   clipped_high: Int32Array;
+  /**
+   * True when the reader guarantees that no value is NaN (EDF/BDF: integers times a finite
+   * scale), so consumers may skip their NaN checks. Absent or false: NaN may occur.
+   */
+  nan_free?: boolean;
 }
 
 export interface Recording {

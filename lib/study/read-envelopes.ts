@@ -2,7 +2,7 @@
 // filter (BandFilter: optional notch, zero-phase Butterworth band-pass) and one or two moving-RMS
 // envelopes. Field data, reference contractions and rest recordings all use this function, so the
 // references are processed exactly like the field data (DESIGN.md).
-import { BandFilter, type BandFilterSettings } from '../dsp/band-filter.js';
+import { BandFilterBank, type BandFilterSettings } from '../dsp/band-filter.js';
 import { RmsEnvelope } from '../dsp/rms-envelope.js';
 import { secondsToSamples } from '../dsp/seconds-to-samples.js';
 import { microvoltsPerUnit } from '../io/microvolts-per-unit.js';
@@ -88,7 +88,6 @@ export interface ReadEnvelopesResult {
 }
 
 class ChannelState {
-  filter: BandFilter;
   main: RmsEnvelope;
   second: RmsEnvelope | null;
   readonly mainOut: GrowableFloat64;
@@ -96,6 +95,8 @@ class ChannelState {
   clippedLow = 0;
   clippedHigh = 0;
   samples = 0;
+  /** Filter settings resolved for this channel's rate (set by its FilterGroup). */
+  settings: BandFilterSettings | null = null;
 
   private scratch = new Float64Array(0);
 
@@ -103,17 +104,12 @@ class ChannelState {
   constructor(readonly fs: number, private readonly req: ReadEnvelopesRequest, private readonly tap: ChannelTap | null, readonly toMicrovolts: number, span_s: number) {
     this.mainOut = new GrowableFloat64(secondsToSamples(span_s, req.envelope.rate_hz) + 1);
     this.secondOut = req.second ? new GrowableFloat64(secondsToSamples(span_s, req.second.rate_hz) + 1) : null;
-    this.filter = this.newFilter();
     this.main = new RmsEnvelope({ fs, window_s: req.envelope.window_s, rate_hz: req.envelope.rate_hz });
     this.second = req.second ? new RmsEnvelope({ fs, window_s: req.second.window_s, rate_hz: req.second.rate_hz }) : null;
   }
 
-  private newFilter(): BandFilter {
-    const f = this.req.filter;
-    return new BandFilter({ fs: this.fs, band_hz: f.band_hz, order: f.order, mains_hz: f.mains_hz, mains_harmonics: f.mains_harmonics, mains_q: f.mains_q });
-  }
-
-  push(x: Float64Array): void {
+  /** The chunk in µV, after the raw tap has seen it (a view valid until the next chunk). */
+  prepare(x: Float64Array): Float64Array {
     if (this.toMicrovolts !== 1) {
       // Everything downstream (envelopes, taps, thresholds) works in µV.
       if (this.scratch.length < x.length) this.scratch = new Float64Array(x.length);
@@ -124,35 +120,75 @@ class ChannelState {
     }
     if (this.tap?.raw) this.tap.raw(x, this.samples);
     this.samples += x.length;
-    this.filter.pushTo(x, this.onFiltered);
+    return x;
   }
 
   /** Filtered samples (a view into the filter's buffer, valid during the call) to the tap and envelopes. */
-  private readonly onFiltered = (y: Float64Array): void => {
+  filtered(y: Float64Array): void {
     if (this.tap?.filtered && y.length > 0) this.tap.filtered(y);
     this.mainOut.append(this.main.pushView(y));
     if (this.second) this.secondOut!.append(this.second.pushView(y));
-  };
+  }
 
-  /** End the current continuous piece. */
-  flush(): void {
-    this.filter.flushTo(this.onFiltered);
+  /** End of the current continuous piece (after the filter's last samples). */
+  endPiece(): void {
     this.mainOut.append(this.main.flush());
     if (this.second) this.secondOut!.append(this.second.flush());
   }
 
   /** Start a new piece whose first sample lies at `offset_s` from the span start: pad NaN up to it. */
   restartAt(offset_s: number): void {
-    this.flush();
     const r = this.req;
     this.mainOut.fill(NaN, secondsToSamples(offset_s, r.envelope.rate_hz) - this.mainOut.length);
     if (r.second) this.secondOut!.fill(NaN, secondsToSamples(offset_s, r.second.rate_hz) - this.secondOut!.length);
     this.tap?.restart?.(offset_s);
-    this.filter = this.newFilter();
     this.main = new RmsEnvelope({ fs: this.fs, window_s: r.envelope.window_s, rate_hz: r.envelope.rate_hz });
     this.second = r.second ? new RmsEnvelope({ fs: this.fs, window_s: r.second.window_s, rate_hz: r.second.rate_hz }) : null;
   }
 }
+
+/**
+ * The channels of one sampling rate, filtered together (BandFilterBank: channel pairs share the
+ * SIMD filter kernel). Channels of one rate get chunks of equal length from the readers.
+ */
+class FilterGroup {
+  private bank: BandFilterBank;
+  private readonly chunks: Float64Array[];
+  private readonly toChannel = (c: number, y: Float64Array): void => this.members[c]!.filtered(y);
+
+  constructor(private readonly filter: FilterSpec, readonly fs: number, readonly members: ChannelState[], readonly indices: number[]) {
+    this.bank = this.newBank();
+    this.chunks = members.map(() => EMPTY);
+    for (const m of members) m.settings = this.bank.settings;
+  }
+
+  private newBank(): BandFilterBank {
+    const f = this.filter;
+    return new BandFilterBank({ fs: this.fs, band_hz: f.band_hz, order: f.order, mains_hz: f.mains_hz, mains_harmonics: f.mains_harmonics, mains_q: f.mains_q }, this.members.length);
+  }
+
+  /** This group's samples of a chunk (all channels of the read, in request order); nanFree: the reader guarantees no NaN. */
+  push(data: Float64Array[], nanFree: boolean): void {
+    for (let j = 0; j < this.members.length; j++) this.chunks[j] = this.members[j]!.prepare(data[this.indices[j]!]!);
+    this.bank.pushTo(this.chunks, this.toChannel, nanFree);
+    this.chunks.fill(EMPTY);
+  }
+
+  /** End the current continuous piece. */
+  flush(): void {
+    this.bank.flushTo(this.toChannel);
+    for (const m of this.members) m.endPiece();
+  }
+
+  /** Flush, then start a new piece at `offset_s` from the span start (EDF+D). */
+  restartAt(offset_s: number): void {
+    this.flush();
+    for (const m of this.members) m.restartAt(offset_s);
+    this.bank = this.newBank();
+  }
+}
+
+const EMPTY = new Float64Array(0);
 
 /**
  * Read a span of a recording and return, per requested signal, its RMS envelope(s) in µV.
@@ -169,18 +205,23 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
     const fileEnd = info.end_s ?? info.duration_s; // EDF+D: clock time of the last record's end
     const end_s = req.end_s === null ? fileEnd : Math.min(fileEnd, req.end_s);
     const states = req.signals.map((i, c) => new ChannelState(info.signals[i]!.rate_hz, req, req.taps?.[c] ?? null, microvoltsPerUnit(info.signals[i]!.unit) ?? 1, end_s - start_s));
+    // channels grouped by sampling rate, each group filtered together
+    const groups: FilterGroup[] = [];
+    for (const fs of [...new Set(states.map((st) => st.fs))]) {
+      const idx = states.map((st, c) => (st.fs === fs ? c : -1)).filter((c) => c >= 0);
+      groups.push(new FilterGroup(req.filter, fs, idx.map((c) => states[c]!), idx));
+    }
     let discontinuities = 0;
     let first = true;
     for await (const chunk of rec.read({ signals: req.signals, start_s, end_s })) {
       if (chunk.gap_before && !first) {
         discontinuities++;
-        for (const s of states) s.restartAt(chunk.start_s - start_s);
+        for (const g of groups) g.restartAt(chunk.start_s - start_s);
       }
       first = false;
+      for (const g of groups) g.push(chunk.data, chunk.nan_free === true);
       for (let c = 0; c < states.length; c++) {
         const s = states[c]!;
-        const x = chunk.data[c]!;
-        s.push(x);
         s.clippedLow += chunk.clipped_low[c]!;
         s.clippedHigh += chunk.clipped_high[c]!;
       }
@@ -189,7 +230,7 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
         req.onProgress(chunk.start_s - start_s + chunk.data[0]!.length / fs0);
       }
     }
-    for (const s of states) s.flush();
+    for (const g of groups) g.flush();
     // Pad to the full span so sample k always means start_s + k / rate.
     const nMain = secondsToSamples(end_s - start_s, req.envelope.rate_hz);
     const channels = states.map((s, c) => {
@@ -202,7 +243,7 @@ export async function readEnvelopes(req: ReadEnvelopesRequest): Promise<ReadEnve
         second = s.secondOut!.take().subarray(0, n2);
       }
       return {
-        envelope: env, second, filter: s.filter.settings, rate_hz: req.envelope.rate_hz,
+        envelope: env, second, filter: s.settings!, rate_hz: req.envelope.rate_hz,
         clipped_low: s.clippedLow, clipped_high: s.clippedHigh, samples: s.samples, fs: s.fs,
         unit: info.signals[req.signals[c]!]!.unit, unit_known: microvoltsPerUnit(info.signals[req.signals[c]!]!.unit) !== null,
       };

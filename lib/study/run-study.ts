@@ -2,8 +2,8 @@
 // from the rest span(s), reference value from the reference span(s), then every field recording
 // streamed once through the same filter and RMS envelope, noise-corrected, normalized and cut into
 // task segments, each summarized by the exposure measures. Produces plain results data.
-import { apdfCurveSorted } from '../exposure/apdf.js';
-import { sortedValid } from '../exposure/percentile.js';
+import { APDF_CURVE_LEVELS, apdfCurveSorted } from '../exposure/apdf.js';
+import { rankedValid } from '../exposure/percentile.js';
 import { evaMatrix } from '../exposure/eva-matrix.js';
 import { noiseCorrect, noiseCorrectArray } from '../exposure/noise-correct.js';
 import { normalizeEnvelope } from '../exposure/normalize-envelope.js';
@@ -313,7 +313,8 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
           if (sg.shortest_s < s.rms_window_s) {
             findings.push({ severity: 'warning', code: 'segment-too-short', where: { ...where, segment: sg.label, start_s: sg.start_s, end_s: sg.end_s }, message: findingText.segmentTooShort(sg.label, sg.shortest_s, s.rms_window_s) });
           }
-          const sorted = sortedValid(slice); // one sort serves the row's levels and the APDF curve
+          // exact at the ranks of the row's levels and of the APDF curve (0…100 %), without a full sort
+          const sorted = rankedValid(slice, [...s.percentiles, ...APDF_CURVE_LEVELS]);
           const m = Number.isFinite(threshold)
             ? segmentMeasures(slice, {
               sorted,

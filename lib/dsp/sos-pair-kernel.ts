@@ -1,0 +1,236 @@
+// The IIR hot loop for two channels at once, in WebAssembly SIMD: each 128-bit lane of an f64x2
+// carries one channel through the same cascade of second-order sections (transposed direct
+// form II), so one instruction does the work of two. The scalar kernel (sosfilt-in-place.ts) is
+// already at the machine's scalar floating-point limit, so two lanes per instruction is where
+// the remaining speed is. The arithmetic is the scalar kernel's, operation by operation
+// (y = b0·x + z1; z1 = (b1·x − a1·y) + z2; z2 = b2·x − a2·y; no fused multiply-add in WebAssembly),
+// so results are bit-identical to it (test/dsp/sos-pair-kernel.test.ts).
+//
+// The module is generated here for the number of sections (every section fused into one pass
+// over the samples, coefficients and states held in locals), about 1 kB; it is compiled once per
+// cascade length. The samples stay in the kernel's own memory: callers allocate their block
+// buffers there (array()), so the passes need no copying in and out. Where WebAssembly SIMD is
+// missing, sosPairKernel returns null and callers use the scalar kernel.
+import type { Sos } from './sos.js';
+
+// Memory layout (bytes): coefficients b0 b1 b2 a1 a2 per section (f64), states z1 z2 per
+// section (f64x2: lane 0 = channel A, lane 1 = channel B), then the callers' arrays from DATA on.
+const COEF = 0;
+const STATE = 2048;
+const DATA = 4096;
+/** Longest cascade the layout holds (coefficients and states must fit below DATA). */
+const MAX_SECTIONS = 48;
+
+// ---- a minimal WebAssembly binary writer (only what the kernel needs) ----
+
+function uleb(v: number): number[] {
+  const out: number[] = [];
+  do {
+    let b = v & 0x7f;
+    v >>>= 7;
+    if (v !== 0) b |= 0x80;
+    out.push(b);
+  } while (v !== 0);
+  return out;
+}
+
+function sleb(v: number): number[] {
+  const out: number[] = [];
+  for (;;) {
+    const b = v & 0x7f;
+    v >>= 7;
+    if ((v === 0 && (b & 0x40) === 0) || (v === -1 && (b & 0x40) !== 0)) { out.push(b); return out; }
+    out.push(b | 0x80);
+  }
+}
+
+function section(id: number, body: number[]): number[] {
+  return [id, ...uleb(body.length), ...body];
+}
+
+function vec(items: number[][]): number[] {
+  return [...uleb(items.length), ...items.flat()];
+}
+
+function name(s: string): number[] {
+  return vec([...s].map((c) => [c.charCodeAt(0)]));
+}
+
+const OP = {
+  block: 0x02, loop: 0x03, br: 0x0c, brIf: 0x0d, end: 0x0b,
+  localGet: 0x20, localSet: 0x21, localTee: 0x22,
+  i32Const: 0x41, i32GeS: 0x4e, i32LtS: 0x48, i32Add: 0x6a, i32Sub: 0x6b, i32Shl: 0x74,
+  simd: 0xfd,
+} as const;
+const SIMD = { load: 0x00, load64Splat: 0x0a, store: 0x0b, load64Lane: 0x57, store64Lane: 0x5b, add: 0xf0, sub: 0xf1, mul: 0xf2 } as const;
+const T_I32 = 0x7f;
+const T_V128 = 0x7b;
+
+/** Code of one function body (locals + instructions) with a small assembler. */
+class Body {
+  readonly code: number[] = [];
+  get(l: number): this { this.code.push(OP.localGet, ...uleb(l)); return this; }
+  set(l: number): this { this.code.push(OP.localSet, ...uleb(l)); return this; }
+  tee(l: number): this { this.code.push(OP.localTee, ...uleb(l)); return this; }
+  i32(v: number): this { this.code.push(OP.i32Const, ...sleb(v)); return this; }
+  op(...b: number[]): this { this.code.push(...b); return this; }
+  simd(op: number, ...imm: number[]): this { this.code.push(OP.simd, ...uleb(op), ...imm); return this; }
+  mem(align: number, offset: number): number[] { return [...uleb(align), ...uleb(offset)]; }
+}
+
+/**
+ * The module for a cascade of ns sections: fwd(srcA, srcB, dstA, dstB, n) and rev(…) filter n
+ * samples of both channels (byte addresses; src may equal dst), forwards or from the last sample
+ * to the first, starting from and updating the states in memory (JS writes coefficients and
+ * states). The memory is imported (env.memory), sized by the caller.
+ */
+function moduleBytes(ns: number): Uint8Array<ArrayBuffer> {
+  // locals: params 0–4 (srcA, srcB, dstA, dstB, n), 5 = p (byte position), 6 = x, 7 = y, then
+  // 5 coefficients and 2 states per section
+  const SA = 0, SB = 1, DA = 2, DB = 3, N = 4, P = 5, X = 6, Y = 7;
+  const coef = (s: number, k: number) => 8 + 7 * s + k; // k: 0 b0, 1 b1, 2 b2, 3 a1, 4 a2
+  const z1 = (s: number) => 8 + 7 * s + 5;
+  const z2 = (s: number) => 8 + 7 * s + 6;
+  const fn = (reverse: boolean): number[] => {
+    const b = new Body();
+    for (let s = 0; s < ns; s++) {
+      for (let k = 0; k < 5; k++) b.i32(0).simd(SIMD.load64Splat, ...b.mem(3, COEF + 8 * (5 * s + k))).set(coef(s, k));
+      b.i32(0).simd(SIMD.load, ...b.mem(4, STATE + 32 * s)).set(z1(s));
+      b.i32(0).simd(SIMD.load, ...b.mem(4, STATE + 32 * s + 16)).set(z2(s));
+    }
+    // p runs over byte positions 0, 8, … (n − 1)·8, or backwards
+    if (reverse) b.get(N).i32(3).op(OP.i32Shl).i32(8).op(OP.i32Sub).set(P);
+    else b.i32(0).set(P);
+    b.op(OP.block, 0x40, OP.loop, 0x40);
+    if (reverse) b.get(P).i32(0).op(OP.i32LtS).op(OP.brIf, 1);
+    else b.get(P).get(N).i32(3).op(OP.i32Shl).op(OP.i32GeS).op(OP.brIf, 1);
+    // x = (A[p], B[p]): splat A's sample, then put B's into lane 1 (operands: address, vector)
+    b.get(SA).get(P).op(OP.i32Add).simd(SIMD.load64Splat, ...b.mem(3, 0)).set(X);
+    b.get(SB).get(P).op(OP.i32Add).get(X).simd(SIMD.load64Lane, ...b.mem(3, 0), 1).set(X);
+    for (let s = 0; s < ns; s++) {
+      // y = b0·x + z1
+      b.get(coef(s, 0)).get(X).simd(SIMD.mul).get(z1(s)).simd(SIMD.add).set(Y);
+      // z1 = (b1·x − a1·y) + z2
+      b.get(coef(s, 1)).get(X).simd(SIMD.mul).get(coef(s, 3)).get(Y).simd(SIMD.mul).simd(SIMD.sub).get(z2(s)).simd(SIMD.add).set(z1(s));
+      // z2 = b2·x − a2·y
+      b.get(coef(s, 2)).get(X).simd(SIMD.mul).get(coef(s, 4)).get(Y).simd(SIMD.mul).simd(SIMD.sub).set(z2(s));
+      // next section's input
+      b.get(Y).set(X);
+    }
+    b.get(DA).get(P).op(OP.i32Add).get(X).simd(SIMD.store64Lane, ...b.mem(3, 0), 0);
+    b.get(DB).get(P).op(OP.i32Add).get(X).simd(SIMD.store64Lane, ...b.mem(3, 0), 1);
+    b.get(P).i32(reverse ? -8 : 8).op(OP.i32Add).set(P);
+    b.op(OP.br, 0, OP.end, OP.end);
+    for (let s = 0; s < ns; s++) {
+      b.i32(0).get(z1(s)).simd(SIMD.store, ...b.mem(4, STATE + 32 * s));
+      b.i32(0).get(z2(s)).simd(SIMD.store, ...b.mem(4, STATE + 32 * s + 16));
+    }
+    b.op(OP.end);
+    const locals = vec([[...uleb(1), T_I32], [...uleb(2 + 7 * ns), T_V128]]);
+    const body = [...locals, ...b.code];
+    return [...uleb(body.length), ...body];
+  };
+  const i32x5 = vec([[T_I32], [T_I32], [T_I32], [T_I32], [T_I32]]);
+  const bytes = [
+    0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
+    ...section(1, vec([[0x60, ...i32x5, ...vec([])]])), // type 0: (i32 ×5) -> ()
+    ...section(2, vec([[...name('env'), ...name('memory'), 0x02, 0x00, ...uleb(1)]])), // imported memory, ≥ 1 page
+    ...section(3, vec([[0], [0]])), // two functions of type 0
+    ...section(7, vec([[...name('fwd'), 0x00, 0], [...name('rev'), 0x00, 1]])),
+    ...section(10, vec([fn(false), fn(true)])),
+  ];
+  return new Uint8Array(bytes);
+}
+
+/** Two channels filtered together through one cascade; see sosPairKernel. */
+export interface SosPairKernel {
+  /**
+   * A zeroed Float64Array of n values in the kernel's memory. Every array given to run() as a
+   * destination must come from here; the capacity is fixed when the kernel is made.
+   */
+  array(n: number): Float64Array;
+  /**
+   * Filter a[start..end) and b[start..end) in place (forwards, or backwards with reverse), from
+   * and into the states sa and sb (scipy's zi layout, 2 values per section) — the same as
+   * sosfiltInPlace on each channel. With `srcA`/`srcB`, the samples are read from there (at
+   * srcStart…; copied in first when they are not in the kernel's memory) and written to a and b.
+   */
+  run(sa: Float64Array, a: Float64Array, sb: Float64Array, b: Float64Array, start: number, end: number, reverse: boolean,
+    srcA?: Float64Array, srcB?: Float64Array, srcStart?: number): void;
+}
+
+const modules = new Map<number, WebAssembly.Module | null>();
+
+function compiled(ns: number): WebAssembly.Module | null {
+  if (!modules.has(ns)) {
+    let m: WebAssembly.Module | null = null;
+    try {
+      const bytes = moduleBytes(ns);
+      if (WebAssembly.validate(bytes)) m = new WebAssembly.Module(bytes);
+    } catch {
+      m = null; // no WebAssembly SIMD on this engine: the scalar kernel is used
+    }
+    modules.set(ns, m);
+  }
+  return modules.get(ns)!;
+}
+
+/**
+ * A two-channel kernel for this cascade with room for `capacity` samples of caller arrays in its
+ * memory, or null where WebAssembly SIMD is not available or the cascade is longer than
+ * MAX_SECTIONS. Assumes a0 = 1 in every section (checked by the public entry points, as the
+ * scalar kernel).
+ * @example const k = sosPairKernel(sos, 2 * n); const a = k.array(n), b = k.array(n); k.run(sa, a, sb, b, 0, n, false)
+ */
+export function sosPairKernel(sos: Sos, capacity: number): SosPairKernel | null {
+  const ns = (sos.length / 6) | 0;
+  if (ns < 1 || ns > MAX_SECTIONS) return null;
+  const mod = compiled(ns);
+  if (mod === null) return null;
+  const bytes = DATA + 8 * capacity;
+  if (bytes > 1 << 30) return null; // far beyond any block this project uses
+  const memory = new WebAssembly.Memory({ initial: Math.ceil(bytes / 65536) });
+  const inst = new WebAssembly.Instance(mod, { env: { memory } });
+  type Fn = (srcA: number, srcB: number, dstA: number, dstB: number, n: number) => void;
+  const ex = inst.exports as { fwd: Fn; rev: Fn };
+  const heap = memory.buffer as ArrayBuffer;
+  const f = new Float64Array(heap);
+  for (let s = 0; s < ns; s++) {
+    const o = 6 * s;
+    f[COEF / 8 + 5 * s] = sos[o]!; f[COEF / 8 + 5 * s + 1] = sos[o + 1]!; f[COEF / 8 + 5 * s + 2] = sos[o + 2]!;
+    f[COEF / 8 + 5 * s + 3] = sos[o + 4]!; f[COEF / 8 + 5 * s + 4] = sos[o + 5]!;
+  }
+  const st = STATE / 8;
+  let next = DATA;
+  const inside = (x: Float64Array) => x.buffer === heap;
+  /** Byte address of the source samples in memory (copied into dst at start first when outside). */
+  const address = (src: Float64Array, dst: Float64Array, srcStart: number, start: number, n: number): number => {
+    if (src === dst) return dst.byteOffset + 8 * start;
+    if (inside(src)) return src.byteOffset + 8 * srcStart;
+    dst.set(src.subarray(srcStart, srcStart + n), start);
+    return dst.byteOffset + 8 * start;
+  };
+  return {
+    array(n) {
+      if (next + 8 * n > bytes) throw new RangeError(`sosPairKernel: capacity of ${capacity} samples exceeded`);
+      const a = new Float64Array(heap, next, n);
+      next += 8 * n;
+      return a;
+    },
+    run(sa, a, sb, b, start, end, reverse, srcA = a, srcB = b, srcStart = start) {
+      if (!inside(a) || !inside(b)) throw new RangeError('sosPairKernel: destination arrays must come from array()');
+      const n = end - start;
+      if (n <= 0) return;
+      const pa = address(srcA, a, srcStart, start, n), pb = address(srcB, b, srcStart, start, n);
+      for (let s = 0; s < ns; s++) {
+        f[st + 4 * s] = sa[2 * s]!; f[st + 4 * s + 1] = sb[2 * s]!;
+        f[st + 4 * s + 2] = sa[2 * s + 1]!; f[st + 4 * s + 3] = sb[2 * s + 1]!;
+      }
+      (reverse ? ex.rev : ex.fwd)(pa, pb, a.byteOffset + 8 * start, b.byteOffset + 8 * start, n);
+      for (let s = 0; s < ns; s++) {
+        sa[2 * s] = f[st + 4 * s]!; sb[2 * s] = f[st + 4 * s + 1]!;
+        sa[2 * s + 1] = f[st + 4 * s + 2]!; sb[2 * s + 1] = f[st + 4 * s + 3]!;
+      }
+    },
+  };
+}
