@@ -166,7 +166,10 @@ export class SpectralEpochs implements ChannelTap {
     let i = 0;
     while (i < x.length) {
       const m = Math.min(n - this.rawFill, x.length - i);
-      if (this.rawIndex % RAW_STRIDE === 0) for (let j = 0; j < m; j++) buf[this.rawFill + j] = x[i + j]!;
+      if (this.rawIndex % RAW_STRIDE === 0) {
+        if (x instanceof Float64Array) buf.set(x.subarray(i, i + m), this.rawFill);
+        else for (let j = 0; j < m; j++) buf[this.rawFill + j] = x[i + j]!;
+      }
       this.rawFill += m;
       i += m;
       if (this.rawFill === n) {
@@ -221,7 +224,8 @@ export class SpectralEpochs implements ChannelTap {
     let i = 0;
     while (i < y.length) {
       const m = Math.min(n - this.fill, y.length - i);
-      for (let j = 0; j < m; j++) buf[this.fill + j] = y[i + j]!;
+      if (y instanceof Float64Array) buf.set(y.subarray(i, i + m), this.fill);
+      else for (let j = 0; j < m; j++) buf[this.fill + j] = y[i + j]!;
       this.fill += m;
       i += m;
       if (this.fill === n) {

@@ -10,6 +10,7 @@ import { InputError } from '../errors.js';
 import { ioMsg } from '../messages.js';
 import { type EdfHeader, type EdfSignalHeader, readEdfHeader } from './edf-header.js';
 import { IO_DEFAULTS, type OpenOptions } from './open-options.js';
+import { cachedScan, rememberScan, scanKey, type EdfScan } from './edf-scan-cache.js';
 import { parseTals } from './parse-tals.js';
 import type { Annotation, ReadOptions, Recording, RecordingFormat, RecordingInfo, SignalChunk, SignalInfo } from './recording.js';
 
@@ -26,10 +27,17 @@ export interface EdfRecording extends Recording {
  */
 export async function openEdf(file: string, fh: FileHandle, fileSize: number, options: OpenOptions = {}): Promise<EdfRecording> {
   let header: EdfHeader;
-  let scan: { annotations: Annotation[]; recordStarts: Float64Array | null; subsecond: number };
+  let scan: EdfScan;
   try {
     header = await readEdfHeader(fh, file, fileSize);
-    scan = await scanAnnotations(file, fh, header, options.chunk_bytes ?? IO_DEFAULTS.chunk_bytes);
+    // one annotation pass per file and process (edf-scan-cache.ts); an unchanged file is not scanned again
+    const key = scanKey(await fh.stat());
+    const known = cachedScan(key);
+    if (known !== null) scan = known;
+    else {
+      scan = await scanAnnotations(file, fh, header, options.chunk_bytes ?? IO_DEFAULTS.chunk_bytes);
+      rememberScan(key, scan);
+    }
   } catch (e) {
     await fh.close();
     throw e;
@@ -71,7 +79,7 @@ export async function openEdf(file: string, fh: FileHandle, fileSize: number, op
 }
 
 /** One pass over the annotation bytes: all annotations, and the record start times for EDF+D. */
-async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunkBytes: number) {
+async function scanAnnotations(file: string, fh: FileHandle, h: EdfHeader, chunkBytes: number): Promise<EdfScan> {
   const annotations: Annotation[] = [];
   const ann = h.signals.filter((s) => s.is_annotation);
   if (ann.length === 0) return { annotations, recordStarts: null, subsecond: 0 };

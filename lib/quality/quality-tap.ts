@@ -78,6 +78,8 @@ export class QualityTap implements ChannelTap {
   private g = 0;
   private gf = 0;
   private gEnd = 0;
+  /** Amplitude window last made writable by filtered() (ensure() once per window, not per run). */
+  private fWin = -1;
   private samples = 0;
   // spectral segments
   private readonly nperseg: number;
@@ -162,10 +164,14 @@ export class QualityTap implements ChannelTap {
       const first = cn[w] === 0;
       let shift = first ? NaN : this.amp.col('shift')[w];
       let hi = 0, lo = 0, nan = 0, s1 = 0, s2 = 0, cnt = 0;
-      for (let j = i; j < end; j++) {
-        const v = x[j];
+      let j = i;
+      if (shift !== shift) { // the window's first valid sample sets its shift (sums stay well conditioned)
+        while (j < end && x[j] !== x[j]) { nan++; j++; }
+        if (j < end) shift = x[j]!;
+      }
+      for (; j < end; j++) {
+        const v = x[j]!;
         if (v !== v) { nan++; continue; }
-        if (shift !== shift) shift = v;
         if (v >= hiL) hi++;
         else if (v <= loL) lo++;
         const d = v - shift;
@@ -188,39 +194,33 @@ export class QualityTap implements ChannelTap {
 
   /** Band-passed chunk, µV (the analysis' filter output). */
   filtered(y: Float64Array): void {
-    const n = y.length, W1 = this.W1;
+    // One pass: runs end at the next amplitude-window, ECG-bin or ECG-window edge, so the inner
+    // loop only sums (power per amplitude window; mean |y| per ECG bin of B samples, nb bins per
+    // ECG window) and the bookkeeping happens once per run.
+    const n = y.length, W1 = this.W1, B = this.B, WE = this.WE, nb = this.nb, bins = this.bins;
     let i = 0;
     while (i < n) {
       const g = this.gf;
       const w = Math.floor(g / W1);
-      const end = Math.min(n, i + (w + 1) * W1 - g);
-      this.amp.ensure(w);
-      let s2 = 0, cnt = 0;
-      for (let j = i; j < end; j++) {
-        const v = y[j];
-        if (v === v) { s2 += v * v; cnt++; }
+      const stop = Math.min(n, i + (w + 1) * W1 - g, i + (B - this.binPos), i + (WE - this.ePos));
+      let s2 = 0, acc = 0, cnt = 0;
+      for (let j = i; j < stop; j++) {
+        const v = y[j]!;
+        if (v === v) { s2 += v * v; acc += v < 0 ? -v : v; cnt++; }
+      }
+      if (w !== this.fWin) {
+        this.amp.ensure(w);
+        this.fWin = w;
       }
       this.amp.col('fn')[w] += cnt;
       this.amp.col('f2')[w] += s2;
-      this.gf += end - i;
-      i = end;
-    }
-    // ECG bins: mean |y| per bin of B samples, nb bins per ECG window; runs up to the next bin
-    // or window edge keep the inner loop free of bookkeeping
-    const B = this.B, WE = this.WE, nb = this.nb, bins = this.bins;
-    let j = 0;
-    while (j < n) {
-      const stop = Math.min(n, j + (B - this.binPos), j + (WE - this.ePos));
-      let acc = 0, cnt = 0;
-      for (let k = j; k < stop; k++) {
-        const v = y[k];
-        if (v === v) { acc += v < 0 ? -v : v; cnt++; }
-      }
+      const m = stop - i;
+      this.gf += m;
       this.binAcc += acc;
       this.binCnt += cnt;
-      this.binPos += stop - j;
-      this.ePos += stop - j;
-      j = stop;
+      this.binPos += m;
+      this.ePos += m;
+      i = stop;
       if (this.binPos === B) {
         if (this.binIdx < nb) bins[this.binIdx] = this.binCnt > 0 ? this.binAcc / this.binCnt : NaN;
         this.binIdx++;

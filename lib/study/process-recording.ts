@@ -1,6 +1,7 @@
 // The unit of parallel work of an analysis: one field recording streamed once through the filter
 // and envelope chain (and, later, the per-channel screening taps). Input and output are plain,
 // transferable data, so the same function runs inline (--jobs 1) or on a worker thread.
+import { primeScans, type EdfScan } from '../io/edf-scan-cache.js';
 import type { OpenOptions } from '../io/open-options.js';
 import { readEnvelopes, type ChannelEnvelopes, type EnvelopeSpec, type FilterSpec } from './read-envelopes.js';
 import { fatigueTaps, spectralEpochBuffers, type FatigueTapSpec } from '../exposure/fatigue-taps.js';
@@ -20,6 +21,8 @@ export interface RecordingJob {
   fatigue?: FatigueTapSpec | null;
   /** Signal-quality screening; absent/null = off. */
   quality?: ScreeningSpec | null;
+  /** The main thread's annotation scan of the file (so a worker need not scan it again). */
+  scans?: [string, EdfScan][];
 }
 
 export interface RecordingJobResult {
@@ -38,6 +41,7 @@ export interface RecordingJobResult {
  * @param onProgress seconds of the recording read so far
  */
 export async function processRecording(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
+  if (job.scans) primeScans(job.scans);
   const taps = fatigueTaps(job.fatigue);
   const qtaps = job.quality ? await createScreeningTaps(job.file, job.signals, job.quality, job.open) : null;
   const res = await readEnvelopes({

@@ -11,6 +11,7 @@ import { segmentMeasures } from '../exposure/segment-measures.js';
 import { rveOverMve, thresholdToRve } from '../exposure/threshold-to-rve.js';
 import { openRecording } from '../io/open-recording.js';
 import type { OpenOptions } from '../io/open-options.js';
+import { scanEntryFor } from '../io/edf-scan-cache.js';
 import { sha256File } from '../io/sha256-file.js';
 import type { Study, StudyRecording, StudySpan } from '../job/study-types.js';
 import { findingText } from '../messages.js';
@@ -162,6 +163,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
     open: openOptions(rec.rate_hz),
     fatigue: fatigueTapSpec(channels.map((c) => rec.channels[c]!), fatigueSettings, s.band_hz),
     quality: qualitySettings.enabled ? { settings: qualitySettings } : null,
+    scans: jobs > 1 ? [scanEntryFor(rec.file)].filter((e) => e !== null) : undefined,
   });
   const queued = new Map<string, Promise<RecordingJobResult>>();
   if (jobs > 1) {
