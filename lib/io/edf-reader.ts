@@ -10,7 +10,7 @@ import { InputError } from '../errors.js';
 import { ioMsg } from '../messages.js';
 import { type EdfHeader, type EdfSignalHeader, readEdfHeader } from './edf-header.js';
 import { IO_DEFAULTS, type OpenOptions } from './open-options.js';
-import { cachedScan, rememberScan, scanKey, type EdfScan } from './edf-scan-cache.js';
+import { cachedScan, rememberScan, scanKey, settled, type EdfScan } from './edf-scan-cache.js';
 import { parseTals } from './parse-tals.js';
 import type { Annotation, ReadOptions, Recording, RecordingFormat, RecordingInfo, SignalChunk, SignalInfo } from './recording.js';
 
@@ -31,12 +31,13 @@ export async function openEdf(file: string, fh: FileHandle, fileSize: number, op
   try {
     header = await readEdfHeader(fh, file, fileSize);
     // one annotation pass per file and process (edf-scan-cache.ts); an unchanged file is not scanned again
-    const key = scanKey(await fh.stat());
-    const known = cachedScan(key);
+    const st = await fh.stat();
+    const key = scanKey(st);
+    const known = settled(st.mtimeMs) ? cachedScan(key) : null;
     if (known !== null) scan = known;
     else {
       scan = await scanAnnotations(file, fh, header, options.chunk_bytes ?? IO_DEFAULTS.chunk_bytes);
-      rememberScan(key, scan);
+      if (settled(st.mtimeMs)) rememberScan(key, scan);
     }
   } catch (e) {
     await fh.close();

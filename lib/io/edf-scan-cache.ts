@@ -3,7 +3,8 @@
 // one means one pass over the whole file: for an 8-hour recording, 460 MB. An analysis opens the
 // same file several times (job check, reference and rest spans, every channel group, the input
 // list); with the cache it is scanned once per process, and the main thread hands its scan to
-// the worker threads with each job (scanEntryFor / primeScans).
+// the worker threads with each job (scanEntryFor / primeScans). Only settled files are
+// remembered (see SETTLED_MS), so a file rewritten in place is always read afresh.
 import { statSync, type Stats } from 'node:fs';
 import type { Annotation } from './recording.js';
 
@@ -28,6 +29,18 @@ export function cachedScan(key: string): EdfScan | null {
   const s = cache.get(key);
   if (!s) return null;
   return { annotations: s.annotations.map((a) => ({ ...a })), recordStarts: s.recordStarts, subsecond: s.subsecond };
+}
+
+/**
+ * Files modified less than this long before their scan are not remembered: a file rewritten
+ * within one tick of the file system's clock could keep its size and time stamp ("racy"
+ * entries), and recordings being analyzed are not that fresh.
+ */
+export const SETTLED_MS = 3000;
+
+/** True when a file with this modification time may be remembered now. */
+export function settled(mtimeMs: number, now = Date.now()): boolean {
+  return now - mtimeMs > SETTLED_MS;
 }
 
 /** Remember a scan (its arrays must not be changed afterwards; cachedScan hands out copies). */
