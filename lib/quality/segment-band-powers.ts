@@ -87,9 +87,11 @@ export class SegmentBandPowers {
     cachedFft(n).realTransform(this.spec, w);
     const s = this.spec, p = this.pow;
     let band = 0, low = 0;
-    for (let k = 0; k <= n / 2; k++) p[k] = s[2 * k] * s[2 * k] + s[2 * k + 1] * s[2 * k + 1];
-    for (let k = this.bandLo; k <= this.bandHi; k++) band += p[k];
-    for (let k = 1; k < this.lowEnd; k++) low += p[k];
+    // power only where it is read: the low bins, and the band with the mains background margin
+    const lowEnd = this.lowEnd, bandLo = this.bandLo, bandHi = this.bandHi, accLo = this.accLo, accHi = this.accHi;
+    for (let k = 1; k < lowEnd; k++) { const v = s[2 * k] * s[2 * k] + s[2 * k + 1] * s[2 * k + 1]; p[k] = v; low += v; }
+    for (let k = accLo; k < accHi; k++) p[k] = s[2 * k] * s[2 * k] + s[2 * k + 1] * s[2 * k + 1];
+    for (let k = bandLo; k <= bandHi; k++) band += p[k];
     this.absLow += low;
     this.absBand += band;
     // the mains test uses the average of band-normalized periodograms: every segment counts
