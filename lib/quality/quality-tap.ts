@@ -300,14 +300,15 @@ export class QualityTap implements ChannelTap {
   }
 
   /**
-   * The per-window statistics gathered so far, as plain data (typed arrays cut to length, copies):
+   * The per-window statistics gathered so far, as plain data (typed arrays cut to length: views
+   * of the tap's own columns, which are handed over, not copied):
    * what judgeScreening needs. Closes the windows still open; call once, after the pass.
    */
   windows(): ScreeningWindows {
     if (this.ePos > 0) this.closeEcgWindow();
     this.ePos = 0;
     this.closeSpectralWindow();
-    const cut = <K extends string>(t: WindowColumns<K>, k: K) => t.col(k).slice(0, t.length);
+    const cut = <K extends string>(t: WindowColumns<K>, k: K) => t.col(k).subarray(0, t.length);
     return {
       fs: this.fs, start_s: this.start_s, samples: this.samples, end_samples: this.gEnd,
       amp_window: this.W1, spectral_window: this.W2, ecg_window: this.WE,
