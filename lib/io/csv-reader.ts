@@ -12,6 +12,7 @@ import { inputMsg, ioMsg, msg } from '../messages.js';
 import { lineBatches } from './line-batches.js';
 import { IO_DEFAULTS, type OpenOptions } from './open-options.js';
 import { parseDecimal } from './parse-decimal.js';
+import { parseNumberRow } from './parse-number-row.js';
 import type { ReadOptions, Recording, RecordingInfo, SignalChunk, SignalInfo } from './recording.js';
 
 const TIME_NAMES = new Set(['time', 'time_s', 't']);
@@ -54,38 +55,65 @@ export async function openCsv(file: string, fh: FileHandle, _size: number, optio
   let rate: number;
   try {
     if (options.rate_hz !== undefined && !(options.rate_hz > 0)) throw new UsageError(msg.badOption('rate', 'a rate in Hz > 0', String(options.rate_hz)));
+    let line = 1; // number of the next line
     let lastLine = 0;
-    for await (const b of lineBatches(fh, blockBytes, (l, limit) => { throw new InputError(inputMsg.csvLineTooLong(file, l, limit), { file, where: `line ${l}` }); })) {
-      for (let k = 0; k < b.count; k++) {
-        const s = b.start[k];
-        const e = b.end[k];
-        const line = b.firstLine + k;
-        lastLine = line;
-        if (isBlank(b.buf, s, e)) continue;
+    let vals = new Float64Array(0);
+    const timeStep = (t: number, ln: number): void => {
+      if (rows === 0) tFirst = t;
+      else {
+        const dt = t - tPrev;
+        if (!(dt > 0)) throw new InputError(ioMsg.csvTimeOrder(file, ln, tPrev, t), { file, where: `line ${ln}` });
+        if (Number.isNaN(med)) {
+          steps.push(dt);
+          stepLines.push(ln);
+          if (steps.length === MEDIAN_STEPS) {
+            med = median(steps);
+            steps.forEach((d, i) => checkStep(file, stepLines[i], d, med));
+          }
+        } else checkStep(file, ln, dt, med);
+      }
+      tPrev = t;
+    };
+    const tooLong = (limit: number): never => { throw new InputError(inputMsg.csvLineTooLong(file, line, limit), { file, where: `line ${line}` }); };
+    for await (const b of lineBatches(fh, blockBytes, tooLong)) {
+      const buf = b.buf;
+      let p = b.start;
+      while (p < b.end) {
+        lastLine = line++;
+        if (layout !== null) {
+          // fast path: a row of plain numbers
+          const q = parseNumberRow(buf, p, layout.delimiter, layout.decimalComma, layout.ncols, vals);
+          if (q >= 0) {
+            const cols = layout.columns;
+            for (let j = 0; j < cols.length; j++) {
+              const v = vals[cols[j]];
+              if (v < mins[j]) mins[j] = v;
+              if (v > maxs[j]) maxs[j] = v;
+            }
+            if (layout.timeColumn >= 0) timeStep(vals[layout.timeColumn], lastLine);
+            rows++;
+            p = q;
+            continue;
+          }
+        }
+        // general path: this line's bytes [s, e) without \r\n
+        const s = p;
+        let e = buf.indexOf(0x0a, p);
+        p = e + 1;
+        if (e > s && buf[e - 1] === 0x0d) e--;
+        if (isBlank(buf, s, e)) continue;
         if (layout === null) {
-          layout = parseHeader(file, b.buf.toString('utf8', s, e), line, options.unit ?? IO_DEFAULTS.csv_unit);
+          layout = parseHeader(file, buf.toString('utf8', s, e), lastLine, options.unit ?? IO_DEFAULTS.csv_unit);
           nan = new Float64Array(layout.columns.length);
           mins = new Float64Array(layout.columns.length).fill(Infinity);
           maxs = new Float64Array(layout.columns.length).fill(-Infinity);
+          vals = new Float64Array(layout.ncols);
           continue;
         }
-        const t = scanRow(file, b.buf, s, e, line, layout, nan, mins, maxs);
+        const t = scanRow(file, buf, s, e, lastLine, layout, nan, mins, maxs);
         if (layout.timeColumn >= 0) {
-          if (Number.isNaN(t)) throw new InputError(ioMsg.csvTimeMissing(file, line), { file, where: `line ${line}` });
-          if (rows === 0) tFirst = t;
-          else {
-            const dt = t - tPrev;
-            if (!(dt > 0)) throw new InputError(ioMsg.csvTimeOrder(file, line, tPrev, t), { file, where: `line ${line}` });
-            if (Number.isNaN(med)) {
-              steps.push(dt);
-              stepLines.push(line);
-              if (steps.length === MEDIAN_STEPS) {
-                med = median(steps);
-                steps.forEach((d, i) => checkStep(file, stepLines[i], d, med));
-              }
-            } else checkStep(file, line, dt, med);
-          }
-          tPrev = t;
+          if (Number.isNaN(t)) throw new InputError(ioMsg.csvTimeMissing(file, lastLine), { file, where: `line ${lastLine}` });
+          timeStep(t, lastLine);
         }
         rows++;
       }
@@ -273,25 +301,43 @@ async function* readRows(file: string, fh: FileHandle, L: CsvLayout, info: Recor
   const out = sel.map(() => new Float64Array(R));
   const zeros = new Int32Array(m);
   ensureCells(L.ncols);
+  const vals = new Float64Array(L.ncols);
   let header = true;
   let r = -1; // data row index
   let fill = 0;
   let chunkRow = s0;
   let done = false;
-  for await (const b of lineBatches(fh, blockBytes, (l, limit) => { throw new InputError(inputMsg.csvLineTooLong(file, l, limit), { file, where: `line ${l}` }); })) {
-    for (let k = 0; k < b.count; k++) {
-      const s = b.start[k];
-      const e = b.end[k];
-      if (isBlank(b.buf, s, e)) continue;
-      if (header) { header = false; continue; }
-      r++;
-      if (r < s0) continue;
-      if (r >= e0) { done = true; break; }
-      splitRow(b.buf, s, e, L.delimiter, cellStart, cellEnd);
-      for (let j = 0; j < m; j++) {
-        const a = cellStart[sel[j]];
-        const z = cellEnd[sel[j]];
-        out[j][fill] = isMissing(b.buf, a, z) ? NaN : parseDecimal(b.buf, a, z, L.decimalComma);
+  let line = 1;
+  const tooLong = (limit: number): never => { throw new InputError(inputMsg.csvLineTooLong(file, line, limit), { file, where: `line ${line}` }); };
+  for await (const b of lineBatches(fh, blockBytes, tooLong)) {
+    const buf = b.buf;
+    let p = b.start;
+    while (p < b.end) {
+      line++;
+      // fast path: a row of plain numbers (never the header: it has a non-numeric cell)
+      const q = header ? -1 : parseNumberRow(buf, p, L.delimiter, L.decimalComma, L.ncols, vals);
+      if (q >= 0) {
+        p = q;
+        r++;
+        if (r < s0) continue;
+        if (r >= e0) { done = true; break; }
+        for (let j = 0; j < m; j++) out[j][fill] = vals[sel[j]];
+      } else {
+        const s = p;
+        let e = buf.indexOf(0x0a, p);
+        p = e + 1;
+        if (e > s && buf[e - 1] === 0x0d) e--;
+        if (isBlank(buf, s, e)) continue;
+        if (header) { header = false; continue; }
+        r++;
+        if (r < s0) continue;
+        if (r >= e0) { done = true; break; }
+        splitRow(buf, s, e, L.delimiter, cellStart, cellEnd);
+        for (let j = 0; j < m; j++) {
+          const a = cellStart[sel[j]];
+          const z = cellEnd[sel[j]];
+          out[j][fill] = isMissing(buf, a, z) ? NaN : parseDecimal(buf, a, z, L.decimalComma);
+        }
       }
       fill++;
       if (fill === R) {
