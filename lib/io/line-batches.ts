@@ -30,39 +30,47 @@ export async function* lineBatches(
 ): AsyncGenerator<LineBatch> {
   let cap = Math.max(16, blockBytes); // bytes read per block; one spare byte for a final \n
   let buf = Buffer.alloc(cap + 1);
+  let next = Buffer.alloc(cap + 1); // the block after `buf`, read while the caller parses `buf`
   let carry = 0; // bytes of an unfinished line at the start of buf
   let pos = 0; // file position of the next read
   let first = true;
-  for (;;) {
-    if (carry === cap) {
-      if (carry >= maxLineBytes) tooLong(maxLineBytes);
-      cap *= 2;
-      const bigger = Buffer.alloc(cap + 1);
-      buf.copy(bigger, 0, 0, carry);
-      buf = bigger;
-    }
-    const { bytesRead } = await fh.read(buf, carry, cap - carry, pos);
-    pos += bytesRead;
-    let len = carry + bytesRead;
-    const eof = bytesRead === 0;
-    let ls = 0;
-    if (first && len >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf) ls = 3;
-    if (first && (len >= 3 || eof)) first = false;
-    if (eof) {
-      // last line without a newline: give it one (the spare byte)
-      if (ls < len) {
-        if (buf[len - 1] !== 0x0a) buf[len++] = 0x0a;
-        yield { buf, start: ls, end: len };
+  let pending: Promise<{ bytesRead: number }> | null = fh.read(buf, 0, cap, 0);
+  try {
+    for (;;) {
+      const { bytesRead }: { bytesRead: number } = await pending!;
+      pending = null;
+      pos += bytesRead;
+      let len: number = carry + bytesRead;
+      const eof = bytesRead === 0;
+      let ls = 0;
+      if (first && len >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf) ls = 3;
+      if (first && (len >= 3 || eof)) first = false;
+      if (eof) {
+        // last line without a newline: give it one (the spare byte)
+        if (ls < len) {
+          if (buf[len - 1] !== 0x0a) buf[len++] = 0x0a;
+          yield { buf, start: ls, end: len };
+        }
+        return;
       }
-      return;
+      const nl = len > ls ? buf.lastIndexOf(0x0a, len - 1) : -1;
+      const rest = nl >= ls ? nl + 1 : ls; // start of the unfinished line
+      // the unfinished line goes to the front of the next buffer, which is then filled from the file
+      if (len - rest === cap) {
+        if (cap >= maxLineBytes) tooLong(maxLineBytes);
+        cap *= 2;
+      }
+      if (next.length < cap + 1) next = Buffer.alloc(cap + 1);
+      buf.copy(next, 0, rest, len);
+      carry = len - rest;
+      pending = fh.read(next, carry, cap - carry, pos);
+      if (nl >= ls) yield { buf, start: ls, end: nl + 1 };
+      const t = buf;
+      buf = next;
+      next = t;
     }
-    const nl = len > ls ? buf.lastIndexOf(0x0a, len - 1) : -1;
-    if (nl >= ls) {
-      yield { buf, start: ls, end: nl + 1 };
-      ls = nl + 1;
-    }
-    // move the unfinished line to the front
-    buf.copy(buf, 0, ls, len);
-    carry = len - ls;
+  } finally {
+    // a caller that stops early (break, error) must not leave a read running into the buffers
+    if (pending) await pending.catch(() => undefined);
   }
 }
