@@ -49,18 +49,11 @@ export function parseNumberRow(buf: Uint8Array, p: number, delim: number, decima
     }
     if (digits === 0) return -1;
     if (ch === 0x65 || ch === 0x45) {
-      ch = buf[++p];
-      let eneg = false;
-      if (ch === 0x2d) { eneg = true; ch = buf[++p]; } else if (ch === 0x2b) ch = buf[++p];
-      let exp = 0;
-      let ed = 0;
-      while (ch >= 0x30 && ch <= 0x39) {
-        if (exp < 1000) exp = exp * 10 + (ch - 0x30);
-        ed++;
-        ch = buf[++p];
-      }
-      if (ed === 0) return -1;
-      scale += eneg ? -exp : exp;
+      // exponent (rare in exports): kept out of line so this function stays small enough to inline
+      p = exponentEnd(buf, p + 1);
+      if (p < 0) return -1;
+      scale += exponent;
+      ch = buf[p];
     }
     // mant is exact when below 2^53: every partial sum was smaller, hence exact too
     if (!(mant < EXACT) || scale < -22 || scale > 22) return -1;
@@ -74,4 +67,27 @@ export function parseNumberRow(buf: Uint8Array, p: number, delim: number, decima
     else return -1;
   }
   return -1;
+}
+
+/** Value of the exponent parsed by the last exponentEnd call. */
+let exponent = 0;
+
+/**
+ * The exponent digits after an 'e'/'E' at `p` ([+-]?digits): sets `exponent` (magnitudes above
+ * 1000 are capped, which keeps them outside the exact range) and returns the position after them,
+ * or -1 when there are no digits.
+ */
+function exponentEnd(buf: Uint8Array, p: number): number {
+  let ch = buf[p];
+  let neg = false;
+  if (ch === 0x2d) { neg = true; ch = buf[++p]; } else if (ch === 0x2b) ch = buf[++p];
+  const start = p;
+  let e = 0;
+  while (ch >= 0x30 && ch <= 0x39) {
+    if (e < 1000) e = e * 10 + (ch - 0x30);
+    ch = buf[++p];
+  }
+  if (p === start) return -1;
+  exponent = neg ? -e : e;
+  return p;
 }
