@@ -1,7 +1,11 @@
 // Streaming reader for CSV/TSV exports: a header row of channel names (optionally `name [unit]`),
 // then one row per sample. Two passes over the bytes, each in blocks with bounded memory: the
 // header phase validates every cell, counts rows and empty cells and finds the sampling rate (time
-// column or option); `read()` parses the rows again into chunk buffers.
+// column or option); `read()` parses the rows again into chunk buffers. Each pass has two row
+// paths: rows of plain numbers (nearly every row of an export) are parsed straight from the bytes
+// in one sweep (parseNumberRow, in tight loops outside the async loops); any other row — header,
+// blank, empty/NaN/quoted/spaced cells, errors, rare number forms — goes through the general path
+// (splitRow + parseDecimal), which decides alone on values and messages. Both give identical values.
 // Conventions (common practice, no single source): delimiter ',' ';' or tab, detected from the
 // header row; with ';' or tab a ',' in a number is a decimal comma (a '.' is accepted too); surrounding double quotes are
 // removed from cells (quoted delimiters are not supported); blank lines are skipped.

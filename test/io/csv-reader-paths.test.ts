@@ -7,7 +7,9 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { InputError } from '../../lib/errors.js';
 import { openRecording } from '../../lib/io/open-recording.js';
+import { MAX_LINE_BYTES } from '../../lib/io/line-batches.js';
 import type { OpenOptions } from '../../lib/io/open-options.js';
+import { inputMsg } from '../../lib/messages.js';
 import { SplitMix64 } from '../../lib/stats/splitmix64.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'shiftload-csv-paths-'));
@@ -96,5 +98,11 @@ describe('openRecording(csv): plain-number rows and general rows', () => {
       writeFileSync(p, t);
       for (const chunk_bytes of [16, 61, 1 << 20]) expect((await refusal(p, { chunk_bytes })).startsWith(`${p}${want}`), `${want} chunk_bytes ${chunk_bytes}`).toBe(true);
     }
+  });
+
+  it('a line over MAX_LINE_BYTES after plain rows is refused naming its line', async () => {
+    const p = join(dir, 'zeros.csv');
+    writeFileSync(p, Buffer.concat([Buffer.from('time,A\n0,1\n0.001,2\n'), Buffer.alloc(MAX_LINE_BYTES + 1000), Buffer.from('\n0.002,3\n')]));
+    expect(await refusal(p, {})).toBe(inputMsg.csvLineTooLong(p, 4, MAX_LINE_BYTES));
   });
 });
