@@ -7,8 +7,10 @@
 // Numbers: the digits are accumulated as an integer mantissa M and the number is M · 10^s. When
 // M < 2^53 and |s| ≤ 22, both M and 10^|s| are exact doubles, so the one multiplication or division
 // is correctly rounded (IEEE 754) and equals the correctly rounded value of the decimal text, which
-// is what Number(text) returns (ECMAScript StringToNumber, ECMA-262 §7.1.4.1.1; Clinger 1990, "How
-// to read floating point numbers accurately", PLDI — the "fast path"). Other numbers return -1.
+// is what Number(text) returns: ECMA-262 StringToNumber requires the correctly rounded double for
+// texts of up to 20 significant digits (from memory of the spec's RoundMVResult; the property test
+// test/io/parse-number-row.test.ts checks it against the engine). This is the exact "fast path" of
+// Clinger 1990, "How to read floating point numbers accurately", PLDI. Other numbers return -1.
 
 /** Exact powers of ten 10^0 … 10^22 (every one is a double without rounding). */
 const POW10 = new Float64Array([1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22]);
