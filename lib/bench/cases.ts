@@ -8,6 +8,7 @@ import { inspectRecording } from '../cli/inspect.js';
 import { openRecording } from '../io/open-recording.js';
 import { loadJob } from '../job/load-job.js';
 import { runStudy } from '../study/run-study.js';
+import { csvBenchCases } from './csv-cases.js';
 
 export interface BenchWork {
   /** Input bytes processed. */
@@ -21,6 +22,8 @@ export interface BenchWork {
 export interface BenchCase {
   name: string;
   describe: string;
+  /** Bench file the case runs on. @default 'edf' */
+  input?: 'edf' | 'csv';
   run(file: string): Promise<BenchWork>;
 }
 
@@ -126,3 +129,5 @@ for (const core of [false, true]) for (const jobs of [1, 2]) benchCases.push({
     }
   },
 });
+
+benchCases.push(...csvBenchCases);

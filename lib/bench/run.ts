@@ -6,6 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { availableParallelism, loadavg } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { benchCases } from './cases.js';
+import { makeBenchCsv } from './make-bench-csv.js';
 import { makeBenchEdf } from './make-bench-edf.js';
 
 interface ChildResult { bytes: number; samples: number; check: string; wall_s: number; cpu_s: number; maxrss_kb: number }
@@ -44,10 +45,14 @@ async function parent(argv: string[]): Promise<void> {
   process.stdout.write(`shiftload bench — node ${process.version}, ${process.platform}-${process.arch}, ${availableParallelism()} cores, load average ${loadavg().map((v) => v.toFixed(1)).join(' ')}\n`);
   const rows: string[][] = [['case', 'file', 'MB', 'wall s', 'CPU s', 'MB/s', 'M samples/s', 'peak RSS MB', 'check']];
   for (const h of hours) {
-    const g0 = Date.now();
-    const file = makeBenchEdf(h);
-    process.stdout.write(`bench file ${file} ready (${((Date.now() - g0) / 1000).toFixed(1)} s)\n`);
+    const files = new Map<string, string>();
+    for (const input of new Set(cases.map((name) => benchCases.find((x) => x.name === name)!.input ?? 'edf'))) {
+      const g0 = Date.now();
+      files.set(input, input === 'csv' ? makeBenchCsv(h) : makeBenchEdf(h));
+      process.stdout.write(`bench file ${files.get(input)} ready (${((Date.now() - g0) / 1000).toFixed(1)} s)\n`);
+    }
     for (const name of cases) {
+      const file = files.get(benchCases.find((x) => x.name === name)!.input ?? 'edf')!;
       const r = spawnSync(process.execPath, [self, '--child', name, file], { encoding: 'utf8', maxBuffer: 1 << 20 });
       if (r.status !== 0) throw new Error(`case ${name} failed: ${r.stderr}`);
       const res = JSON.parse(r.stdout.trim().split('\n').pop()!) as ChildResult;

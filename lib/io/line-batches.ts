@@ -1,88 +1,76 @@
 // Split a file into lines without reading it whole: blocks of bytes are read into one reused buffer
-// and handed out as batches of line boundaries; a line cut by a block edge is carried to the next
-// block. Lines end at \n; a trailing \r is dropped. A UTF-8 byte order mark at the start is skipped.
+// and handed out as batches of complete lines; a line cut by a block edge is carried to the next
+// block. Every line of a batch ends in \n — a last line without one gets a \n appended in the buffer
+// — so a parser can run to the \n without bounds checks; the caller splits the batch at the \n
+// bytes and drops a \r before them. A UTF-8 byte order mark at the start is skipped.
 import type { FileHandle } from 'node:fs/promises';
 
-/** A batch of complete lines inside `buf`. Valid until the next batch is requested. */
+/** A batch of complete lines: bytes [start, end) of `buf`, buf[end - 1] = \n. Valid until the next batch is requested. */
 export interface LineBatch {
   buf: Buffer;
-  /** start[i]..end[i] (exclusive) are the bytes of line i, without \r\n. */
-  start: Int32Array;
-  end: Int32Array;
-  count: number;
-  /** 1-based line number of line 0 of this batch. */
-  firstLine: number;
+  start: number;
+  end: number;
 }
 
 /** Longest line accepted, bytes: a text export never comes near it; a zero-filled or binary file does. */
 export const MAX_LINE_BYTES = 1 << 24;
 
 /**
- * Stream the lines of an open file in batches.
+ * Stream the lines of an open file in batches of whole lines.
  * @param blockBytes bytes per read (the buffer grows only for a single longer line)
- * @param tooLong called (and must throw) when a line exceeds `maxLineBytes`; it gets the 1-based
- *   line number. @default throws a plain Error
+ * @param tooLong called (and must throw) when a line exceeds `maxLineBytes`; the caller knows the
+ *   line number (one more than the \n bytes it has seen). @default throws a plain Error
  * @param maxLineBytes @default MAX_LINE_BYTES (16 MiB)
+ * @example for await (const b of lineBatches(fh, 1 << 20)) for (let p = b.start; p < b.end; p = b.buf.indexOf(10, p) + 1) { ... }
  */
 export async function* lineBatches(
   fh: FileHandle, blockBytes: number,
-  tooLong: (line: number, limit: number) => never = (l, limit) => { throw new Error(`line ${l} is longer than ${limit} bytes`); },
+  tooLong: (limit: number) => never = (limit) => { throw new Error(`a line is longer than ${limit} bytes`); },
   maxLineBytes = MAX_LINE_BYTES,
 ): AsyncGenerator<LineBatch> {
-  let buf = Buffer.alloc(Math.max(16, blockBytes));
-  let cap = 1024;
-  let start = new Int32Array(cap);
-  let end = new Int32Array(cap);
+  let cap = Math.max(16, blockBytes); // bytes read per block; one spare byte for a final \n
+  let buf = Buffer.alloc(cap + 1);
+  let next = Buffer.alloc(cap + 1); // the block after `buf`, read while the caller parses `buf`
   let carry = 0; // bytes of an unfinished line at the start of buf
   let pos = 0; // file position of the next read
-  let line = 1;
   let first = true;
-  for (;;) {
-    if (carry === buf.length) {
-      if (carry >= maxLineBytes) tooLong(line, maxLineBytes);
-      const bigger = Buffer.alloc(buf.length * 2);
-      buf.copy(bigger, 0, 0, carry);
-      buf = bigger;
-    }
-    const { bytesRead } = await fh.read(buf, carry, buf.length - carry, pos);
-    pos += bytesRead;
-    const len = carry + bytesRead;
-    const eof = bytesRead === 0;
-    let ls = 0;
-    if (first && len >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf) ls = 3;
-    if (first && (len >= 3 || eof)) first = false;
-    let n = 0;
-    for (let i = ls; i < len; i++) {
-      if (buf[i] !== 0x0a) continue;
-      if (n === cap) {
-        cap *= 2;
-        const s2 = new Int32Array(cap); s2.set(start); start = s2;
-        const e2 = new Int32Array(cap); e2.set(end); end = e2;
+  let pending: Promise<{ bytesRead: number }> | null = fh.read(buf, 0, cap, 0);
+  try {
+    for (;;) {
+      const { bytesRead }: { bytesRead: number } = await pending!;
+      pending = null;
+      pos += bytesRead;
+      let len: number = carry + bytesRead;
+      const eof = bytesRead === 0;
+      let ls = 0;
+      if (first && len >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf) ls = 3;
+      if (first && (len >= 3 || eof)) first = false;
+      if (eof) {
+        // last line without a newline: give it one (the spare byte)
+        if (ls < len) {
+          if (buf[len - 1] !== 0x0a) buf[len++] = 0x0a;
+          yield { buf, start: ls, end: len };
+        }
+        return;
       }
-      start[n] = ls;
-      end[n] = i > ls && buf[i - 1] === 0x0d ? i - 1 : i;
-      n++;
-      ls = i + 1;
-    }
-    if (eof && ls < len) {
-      // last line without a newline
-      if (n === cap) {
+      const nl = len > ls ? buf.lastIndexOf(0x0a, len - 1) : -1;
+      const rest = nl >= ls ? nl + 1 : ls; // start of the unfinished line
+      // the unfinished line goes to the front of the next buffer, which is then filled from the file
+      if (len - rest === cap) {
+        if (cap >= maxLineBytes) tooLong(maxLineBytes);
         cap *= 2;
-        const s2 = new Int32Array(cap); s2.set(start); start = s2;
-        const e2 = new Int32Array(cap); e2.set(end); end = e2;
       }
-      start[n] = ls;
-      end[n] = len > ls && buf[len - 1] === 0x0d ? len - 1 : len;
-      n++;
-      ls = len;
+      if (next.length < cap + 1) next = Buffer.alloc(cap + 1);
+      buf.copy(next, 0, rest, len);
+      carry = len - rest;
+      pending = fh.read(next, carry, cap - carry, pos);
+      if (nl >= ls) yield { buf, start: ls, end: nl + 1 };
+      const t = buf;
+      buf = next;
+      next = t;
     }
-    if (n > 0) {
-      yield { buf, start, end, count: n, firstLine: line };
-      line += n;
-    }
-    if (eof) return;
-    // move the unfinished line to the front
-    buf.copy(buf, 0, ls, len);
-    carry = len - ls;
+  } finally {
+    // a caller that stops early (break, error) must not leave a read running into the buffers
+    if (pending) await pending.catch(() => undefined);
   }
 }
