@@ -24,6 +24,8 @@ export interface BenchCase {
   describe: string;
   /** Bench file the case runs on. @default 'edf' */
   input?: 'edf' | 'csv';
+  /** Recording lengths (h) the case runs at when no --case is given (its input is costly to make). @default every --hours value */
+  defaultHours?: number[];
   run(file: string): Promise<BenchWork>;
 }
 

@@ -8,6 +8,8 @@ export const csvBenchCases: BenchCase[] = [
     name: 'read-csv',
     describe: 'CSV input: openRecording (header pass) + read every signal as values and sum them',
     input: 'csv',
+    // the CSV target is a 1-hour export (255 MB); 8 hours would be a 2 GB file to generate
+    defaultHours: [1],
     async run(file) {
       const rec = await openRecording(file);
       let sum = 0;

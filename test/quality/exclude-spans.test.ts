@@ -18,10 +18,18 @@ describe('excludeSpans(envelope, rate_hz, spans)', () => {
     const out = excludeSpans(new Float64Array(10).fill(1), 10, [{ start_s: 0.4, end_s: 0.5 }], 0.1);
     expect(Array.from(out, (v) => (Number.isNaN(v) ? 0 : 1))).toEqual([1, 1, 1, 0, 0, 0, 1, 1, 1, 1]);
   });
-  it('excludeSpans with no spans returns an equal copy', () => {
+  it('excludeSpans with no span (or none covering a sample) returns the envelope itself, unchanged', () => {
     const env = Float64Array.from([1, NaN, 3]);
-    const out = excludeSpans(env, 20, []);
+    expect(excludeSpans(env, 20, [])).toBe(env);
+    expect(excludeSpans(env, 20, [{ start_s: 5, end_s: 6 }])).toBe(env);
+    expect(Array.from(env)).toEqual([1, NaN, 3]);
+  });
+
+  it('excludeSpans with a covering span returns a copy and leaves the input unchanged', () => {
+    const env = Float64Array.from([1, 2, 3]);
+    const out = excludeSpans(env, 1, [{ start_s: 1, end_s: 2 }]);
     expect(out).not.toBe(env);
     expect(Array.from(out)).toEqual([1, NaN, 3]);
+    expect(Array.from(env)).toEqual([1, 2, 3]);
   });
 });
