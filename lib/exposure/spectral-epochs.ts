@@ -267,10 +267,10 @@ export class SpectralEpochs implements ChannelTap {
     return this.t.length;
   }
 
-  /** The epochs so far (new arrays). */
+  /** The epochs so far (views of the tap's append-only arrays: later epochs do not change them; no copies). */
   result(): SpectralEpochSeries {
     return {
-      t_s: this.t.toArray(), rms_uv: this.rms.toArray(), mnf_hz: this.mnf.toArray(), mdf_hz: this.mdf.toArray(),
+      t_s: this.t.take(), rms_uv: this.rms.take(), mnf_hz: this.mnf.take(), mdf_hz: this.mdf.take(),
       epoch_s: this.n / this.fs, n: this.n, nfft: this.nfft, fs: this.fs, band_hz: [this.band_hz[0], this.band_hz[1]],
       spectrum: this.meanSpectrum(),
     };

@@ -35,7 +35,9 @@ export class GrowableFloat64 {
 
   /**
    * The values as a view of the buffer, without a copy (for a buffer sized right up front, so
-   * little capacity is left unused); the GrowableFloat64 must not be used afterwards.
+   * little capacity is left unused). Appending afterwards never changes the values seen through
+   * the view (append-only); once the view's buffer is transferred to another thread, the
+   * GrowableFloat64 must not be used again.
    */
   take(): Float64Array {
     return this.buf.subarray(0, this.n);

@@ -148,7 +148,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   // single long recording keeps every core busy (each group reads the file itself; reading is
   // cheap next to filtering). Inline, each recording is read when its turn comes.
   const jobs = Math.max(1, Math.floor(options.jobs ?? 1));
-  const pool = new RecordingPool(jobs > 1 ? jobs : 0);
+  const pool = new RecordingPool(jobs);
   const fatigueSettings = resolveFatigueSettings(s.fatigue);
   const qualitySettings = resolveQualitySettings(s.quality);
   const quality: QualityRow[] = [];

@@ -1,6 +1,8 @@
-// A fixed pool of worker threads running processRecording. Jobs are queued and handed to the first
-// free worker; results come back as transferred buffers. Errors keep their kind (a user error
-// stays an InputError, exit code 2). With size 0 nothing is started and jobs run inline.
+// A fixed pool running processRecording on `size` threads: size − 1 worker threads plus this
+// thread itself (which would otherwise only wait for results: one isolate fewer, about 30 MB,
+// and no idle core). Jobs are queued and handed to the first free worker, this thread's slot
+// last; results from workers come back as transferred buffers. Errors keep their kind (a user
+// error stays an InputError, exit code 2). With size 0 or 1 every job simply runs inline.
 import { Worker } from 'node:worker_threads';
 import { InputError } from '../errors.js';
 import { processRecording, type RecordingJob, type RecordingJobResult } from './process-recording.js';
@@ -26,10 +28,12 @@ export class RecordingPool {
   private readonly queue: Pending[] = [];
   private readonly running = new Map<Worker, Pending>();
   private nextId = 1;
+  /** True while this thread runs a queued job itself. */
+  private inlineBusy = false;
 
-  /** @param size number of worker threads; 0 = run every job inline on this thread */
+  /** @param size threads working at once, this one included; 0 or 1 = run every job inline */
   constructor(readonly size: number) {
-    for (let i = 0; i < size; i++) {
+    for (let i = 0; i < size - 1; i++) {
       const w = new Worker(workerUrl());
       w.on('message', (m: { id: number; progress?: number; result?: RecordingJobResult; error?: { message: string; user: boolean; file?: string } }) => {
         const p = this.running.get(w);
@@ -52,7 +56,7 @@ export class RecordingPool {
 
   /** Run one recording job (queued when every worker is busy). */
   run(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
-    if (this.size === 0) return processRecording(job, onProgress);
+    if (this.size <= 1) return processRecording(job, onProgress);
     return new Promise((resolve, reject) => {
       this.queue.push({ id: this.nextId++, job, resolve, reject, onProgress });
       this.pump();
@@ -65,6 +69,17 @@ export class RecordingPool {
       const p = this.queue.shift()!;
       this.running.set(w, p);
       w.postMessage({ id: p.id, job: p.job });
+    }
+    if (!this.inlineBusy && this.queue.length > 0) {
+      const p = this.queue.shift()!;
+      this.inlineBusy = true;
+      // started on the next turn, so every job queued now reaches a worker first
+      setImmediate(() => {
+        processRecording(p.job, p.onProgress).then(p.resolve, p.reject).finally(() => {
+          this.inlineBusy = false;
+          this.pump();
+        });
+      });
     }
   }
 
