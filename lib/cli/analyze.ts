@@ -38,8 +38,8 @@ export interface AnalyzeOutcome {
 }
 
 /**
- * Worker threads used when --jobs is not given: one per core, at most 4 (reading, not filtering,
- * limits beyond that on typical machines).
+ * Threads used when --jobs is not given (this one and jobs − 1 workers): one per core, at most 4
+ * (reading, not filtering, limits beyond that on typical machines).
  */
 export function defaultJobs(): number {
   return Math.max(1, Math.min(4, availableParallelism()));
@@ -122,7 +122,7 @@ export const analyzeCommand: CommandModule<object, AnalyzeArgs> = {
     .option('force', { type: 'boolean', default: false, describe: 'reuse an output folder that already holds files' })
     .option('report', { type: 'boolean', default: true, describe: 'write report.pdf (--no-report to skip)' })
     .option('svg', { type: 'boolean', default: false, describe: 'also write every chart as SVG into <out>/charts' })
-    .option('jobs', { alias: 'j', type: 'number', default: defaultJobs(), defaultDescription: 'cores, at most 4', describe: 'worker threads (recordings and channel groups processed at once); results are identical for any value' })
+    .option('jobs', { alias: 'j', type: 'number', default: defaultJobs(), defaultDescription: 'cores, at most 4', describe: 'threads working at once, this one included (recordings and channel groups in parallel); results are identical for any value' })
     .example('$0 analyze study/job.yaml', 'analyze and write study/job-results/{results.json,segments.csv,report.pdf}')
     .example('$0 analyze job.yaml -o out --force --no-report', 'results only, into an existing folder')
     .option('detect', { type: 'string', array: true, describe: 'plan for a difference between conditions: 2 (median load), p90=5, gaps_per_min=1; adds the workers needed' })
