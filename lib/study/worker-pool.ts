@@ -30,6 +30,7 @@ export class RecordingPool {
   private nextId = 1;
   /** True while this thread runs a queued job itself. */
   private inlineBusy = false;
+  private closed = false;
 
   /** @param size threads working at once, this one included; 0 or 1 = run every job inline */
   constructor(readonly size: number) {
@@ -57,6 +58,7 @@ export class RecordingPool {
   /** Run one recording job (queued when every worker is busy). */
   run(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
     if (this.size <= 1) return processRecording(job, onProgress);
+    if (this.closed) return Promise.reject(new Error('recording pool closed'));
     return new Promise((resolve, reject) => {
       this.queue.push({ id: this.nextId++, job, resolve, reject, onProgress });
       this.pump();
@@ -75,7 +77,12 @@ export class RecordingPool {
       this.inlineBusy = true;
       // started on the next turn, so every job queued now reaches a worker first
       setImmediate(() => {
-        processRecording(p.job, p.onProgress).then(p.resolve, p.reject).finally(() => {
+        // after close() the job stops at its next chunk (as terminate() stops a worker)
+        const progress = (d: number) => {
+          if (this.closed) throw new Error('recording pool closed');
+          p.onProgress?.(d);
+        };
+        (this.closed ? Promise.reject(new Error('recording pool closed')) : processRecording(p.job, progress)).then(p.resolve, p.reject).finally(() => {
           this.inlineBusy = false;
           this.pump();
         });
@@ -83,8 +90,13 @@ export class RecordingPool {
     }
   }
 
-  /** Stop every worker. */
+  /** Stop every worker (and a job this thread is running, at its next chunk). */
   async close(): Promise<void> {
+    this.closed = true;
+    const stopped = new Error('recording pool closed');
+    for (const p of this.queue.splice(0)) p.reject(stopped);
+    for (const p of this.running.values()) p.reject(stopped);
+    this.running.clear();
     await Promise.all(this.workers.map((w) => w.terminate()));
   }
 }
