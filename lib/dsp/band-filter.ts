@@ -8,6 +8,7 @@
 import { UsageError } from '../errors.js';
 import { dspMsg } from '../messages.js';
 import { butter } from './butter.js';
+import { concatFloat64 } from './concat-float64.js';
 import { mainsNotch } from './mains-notch.js';
 import { sosConcat, type Sos } from './sos.js';
 import { ZeroPhaseBank, type BankSink } from './zero-phase-bank.js';
@@ -259,11 +260,5 @@ function mayHoldNaN(x: ArrayLike<number>): boolean {
 }
 
 function joinParts(parts: Float64Array[]): Float64Array {
-  if (parts.length === 1) return parts[0]!;
-  let n = 0;
-  for (const p of parts) n += p.length;
-  const r = new Float64Array(n);
-  let at = 0;
-  for (const p of parts) { r.set(p, at); at += p.length; }
-  return r;
+  return parts.length === 1 ? parts[0]! : concatFloat64(parts);
 }

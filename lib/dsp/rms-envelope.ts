@@ -15,6 +15,7 @@
 import { UsageError } from '../errors.js';
 import { dspMsg } from '../messages.js';
 import { checkSamplingRate } from './butter.js';
+import { concatFloat64 } from './concat-float64.js';
 import { secondsToSamples } from './seconds-to-samples.js';
 
 export interface RmsEnvelopeOptions {
@@ -231,10 +232,5 @@ export class RmsEnvelope {
  */
 export function rmsEnvelope(x: ArrayLike<number>, options: RmsEnvelopeOptions): Float64Array {
   const env = new RmsEnvelope(options);
-  const a = env.push(x);
-  const b = env.flush();
-  const out = new Float64Array(a.length + b.length);
-  out.set(a);
-  out.set(b, a.length);
-  return out;
+  return concatFloat64([env.pushView(x), env.flush()]);
 }

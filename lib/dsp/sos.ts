@@ -1,5 +1,6 @@
 // The filter representation used everywhere in shiftload: second-order sections (scipy's `sos`).
 // Transfer-function form (b, a) is numerically fragile from order 4 on; sections are not.
+import { concatFloat64 } from './concat-float64.js';
 
 /**
  * Second-order sections: a Float64Array of n × 6 numbers, one row per section,
@@ -16,10 +17,5 @@ export function sosSections(sos: Sos): number {
 
 /** Join several cascades into one (the filters are applied one after the other). */
 export function sosConcat(...parts: Sos[]): Sos {
-  let n = 0;
-  for (const p of parts) n += p.length;
-  const out = new Float64Array(n);
-  let o = 0;
-  for (const p of parts) { out.set(p, o); o += p.length; }
-  return out;
+  return concatFloat64(parts);
 }

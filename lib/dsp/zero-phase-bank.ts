@@ -21,6 +21,7 @@
 import { UsageError } from '../errors.js';
 import { dspMsg } from '../messages.js';
 import { checkSos } from './check-sos.js';
+import { concatFloat64 } from './concat-float64.js';
 import type { Sos } from './sos.js';
 import { sosPairKernel, type SosPairKernel } from './sos-pair-kernel.js';
 import { sosfiltInPlace, sosfiltReverseInPlace } from './sosfilt-in-place.js';
@@ -182,14 +183,7 @@ export class ZeroPhaseBank {
   take(c: number): Float64Array {
     const out = this.out[c]!;
     this.out[c] = [];
-    if (out.length === 0) return new Float64Array(0);
-    if (out.length === 1) return out[0]!;
-    let n = 0;
-    for (const o of out) n += o.length;
-    const r = new Float64Array(n);
-    let at = 0;
-    for (const o of out) { r.set(o, at); at += o.length; }
-    return r;
+    return out.length === 1 ? out[0]! : concatFloat64(out);
   }
 
   /** Odd extension of the head and the first samples into the forward pass. */

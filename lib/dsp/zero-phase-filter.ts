@@ -1,6 +1,7 @@
 // Zero-phase (forward–backward) filtering of one stream by overlapped blocks, equal to
 // whole-signal sosfiltfilt (default odd padding, sosfilt_zi initial states) within 1e-12 of full
 // scale: a ZeroPhaseBank of one channel (zero-phase-bank.ts explains the method and its bound).
+import { concatFloat64 } from './concat-float64.js';
 import { ZeroPhaseBank, type ZeroPhaseBankOptions } from './zero-phase-bank.js';
 import type { Sos } from './sos.js';
 
@@ -70,9 +71,5 @@ export class ZeroPhaseFilter {
 /** Batch form of ZeroPhaseFilter (for tests and short signals; sosfiltfilt is the reference). */
 export function zeroPhaseFilter(sos: Sos, x: ArrayLike<number>, options: ZeroPhaseFilterOptions = {}): Float64Array {
   const zp = new ZeroPhaseFilter(sos, options);
-  const a = zp.push(x), b = zp.flush();
-  const r = new Float64Array(a.length + b.length);
-  r.set(a);
-  r.set(b, a.length);
-  return r;
+  return concatFloat64([zp.push(x), zp.flush()]);
 }

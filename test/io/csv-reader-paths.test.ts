@@ -5,33 +5,14 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { InputError } from '../../lib/errors.js';
-import { openRecording } from '../../lib/io/open-recording.js';
 import { MAX_LINE_BYTES } from '../../lib/io/line-batches.js';
-import type { OpenOptions } from '../../lib/io/open-options.js';
 import { inputMsg } from '../../lib/messages.js';
+import { readAll, refusal } from '../support/read-recording.js';
 import { SplitMix64 } from '../../lib/stats/splitmix64.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'shiftload-csv-paths-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-async function readAll(path: string, opts: OpenOptions = {}, span: { start_s?: number; end_s?: number } = {}) {
-  const rec = await openRecording(path, opts);
-  const data: number[][] = rec.info.signals.map(() => []);
-  for await (const c of rec.read({ signals: rec.info.signals.map((s) => s.index).reverse(), ...span })) c.data.forEach((d, j) => data[j].push(...d));
-  await rec.close();
-  return { info: rec.info, data };
-}
-
-async function refusal(path: string, opts: OpenOptions): Promise<string> {
-  try {
-    await readAll(path, opts);
-  } catch (e) {
-    expect(e).toBeInstanceOf(InputError);
-    return (e as Error).message;
-  }
-  throw new Error('accepted');
-}
 
 /**
  * A semicolon file with decimal commas mixing plain rows and rows only the general path reads:
@@ -71,12 +52,12 @@ describe('openRecording(csv): plain-number rows and general rows', () => {
     const p = join(dir, 'mixed.csv');
     writeFileSync(p, text);
     for (const chunk_bytes of [16, 17, 29, 64, 333, 4096, 1 << 20]) {
-      const { info, data } = await readAll(p, { chunk_bytes });
+      const { info, data } = await readAll(p, { chunk_bytes }, { reversed: true });
       expect(info.signals.map((s) => [s.label, s.unit, s.rate_hz, s.samples, s.nan_count])).toEqual([['A', 'uV', 1000, 2500, 0], ['B', 'uV', 1000, 2500, b.filter(Number.isNaN).length]]);
       expect(info.signals[0].physical_min).toBe(Math.min(...a));
       expect(info.signals[1].physical_max).toBe(Math.max(...b.filter((v) => !Number.isNaN(v))));
       expect(data, `chunk_bytes ${chunk_bytes}`).toEqual([b, a]); // signals requested in reverse order
-      const part = await readAll(p, { chunk_bytes }, { start_s: 1.2, end_s: 1.9 });
+      const part = await readAll(p, { chunk_bytes }, { span: { start_s: 1.2, end_s: 1.9 }, reversed: true });
       expect(part.data).toEqual([b.slice(1200, 1900), a.slice(1200, 1900)]);
     }
   });

@@ -4,11 +4,9 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { InputError } from '../../lib/errors.js';
-import { openRecording } from '../../lib/io/open-recording.js';
-import type { OpenOptions } from '../../lib/io/open-options.js';
 import { parseDecimal } from '../../lib/io/parse-decimal.js';
 import { SplitMix64 } from '../../lib/stats/splitmix64.js';
+import { readAll, refusal } from '../support/read-recording.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'shiftload-csv-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -19,27 +17,6 @@ function put(name: string, text: string | Buffer): string {
   return p;
 }
 
-async function readAll(path: string, opts: OpenOptions = {}, span: { start_s?: number; end_s?: number } = {}) {
-  const rec = await openRecording(path, opts);
-  const data: number[][] = rec.info.signals.map(() => []);
-  const starts: number[] = [];
-  for await (const c of rec.read({ signals: rec.info.signals.map((s) => s.index), ...span })) {
-    starts.push(c.start_s);
-    c.data.forEach((d, j) => data[j].push(...d));
-  }
-  await rec.close();
-  return { info: rec.info, data, starts };
-}
-
-async function refusal(path: string, opts: OpenOptions = {}): Promise<string> {
-  try {
-    await readAll(path, opts);
-  } catch (e) {
-    expect(e).toBeInstanceOf(InputError);
-    return (e as Error).message;
-  }
-  throw new Error('accepted');
-}
 
 describe('openRecording(csv)', () => {
   it('comma-delimited with a time column: rate from the time steps, unit from the header, default uV', async () => {
@@ -103,7 +80,7 @@ describe('openRecording(csv)', () => {
     const b = await readAll(p, { chunk_bytes: 1 << 20 });
     expect(a.data).toEqual(b.data);
     expect(a.data[1]).toEqual(Array.from({ length: n }, (_, i) => i));
-    const part = await readAll(p, { chunk_bytes: 64 }, { start_s: 0.5, end_s: 1.25 });
+    const part = await readAll(p, { chunk_bytes: 64 }, { span: { start_s: 0.5, end_s: 1.25 } });
     expect(part.data[1]).toEqual(Array.from({ length: 750 }, (_, i) => 500 + i));
     expect(part.starts[0]).toBe(0.5);
   });
