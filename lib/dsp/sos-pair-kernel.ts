@@ -11,6 +11,7 @@
 // cascade length. The samples stay in the kernel's own memory: callers allocate their block
 // buffers there (array()), so the passes need no copying in and out. Where WebAssembly SIMD is
 // missing, sosPairKernel returns null and callers use the scalar kernel.
+import { Body, functionNames, name, OP, SIMD, section, T_I32, T_V128, uleb, vec, wasmModule } from '../wasm/module-writer.js';
 import type { Sos } from './sos.js';
 
 // Memory layout (bytes): coefficients b0 b1 b2 a1 a2 per section (f64), states z1 z2 per
@@ -20,63 +21,6 @@ const STATE = 2048;
 const DATA = 4096;
 /** Longest cascade the layout holds (coefficients and states must fit below DATA). */
 const MAX_SECTIONS = 48;
-
-// ---- a minimal WebAssembly binary writer (only what the kernel needs) ----
-
-function uleb(v: number): number[] {
-  const out: number[] = [];
-  do {
-    let b = v & 0x7f;
-    v >>>= 7;
-    if (v !== 0) b |= 0x80;
-    out.push(b);
-  } while (v !== 0);
-  return out;
-}
-
-function sleb(v: number): number[] {
-  const out: number[] = [];
-  for (;;) {
-    const b = v & 0x7f;
-    v >>= 7;
-    if ((v === 0 && (b & 0x40) === 0) || (v === -1 && (b & 0x40) !== 0)) { out.push(b); return out; }
-    out.push(b | 0x80);
-  }
-}
-
-function section(id: number, body: number[]): number[] {
-  return [id, ...uleb(body.length), ...body];
-}
-
-function vec(items: number[][]): number[] {
-  return [...uleb(items.length), ...items.flat()];
-}
-
-function name(s: string): number[] {
-  return vec([...s].map((c) => [c.charCodeAt(0)]));
-}
-
-const OP = {
-  block: 0x02, loop: 0x03, br: 0x0c, brIf: 0x0d, end: 0x0b,
-  localGet: 0x20, localSet: 0x21, localTee: 0x22,
-  i32Const: 0x41, i32GeS: 0x4e, i32LtS: 0x48, i32Add: 0x6a, i32Sub: 0x6b, i32Shl: 0x74,
-  simd: 0xfd,
-} as const;
-const SIMD = { load: 0x00, load64Splat: 0x0a, store: 0x0b, load64Lane: 0x57, store64Lane: 0x5b, add: 0xf0, sub: 0xf1, mul: 0xf2 } as const;
-const T_I32 = 0x7f;
-const T_V128 = 0x7b;
-
-/** Code of one function body (locals + instructions) with a small assembler. */
-class Body {
-  readonly code: number[] = [];
-  get(l: number): this { this.code.push(OP.localGet, ...uleb(l)); return this; }
-  set(l: number): this { this.code.push(OP.localSet, ...uleb(l)); return this; }
-  tee(l: number): this { this.code.push(OP.localTee, ...uleb(l)); return this; }
-  i32(v: number): this { this.code.push(OP.i32Const, ...sleb(v)); return this; }
-  op(...b: number[]): this { this.code.push(...b); return this; }
-  simd(op: number, ...imm: number[]): this { this.code.push(OP.simd, ...uleb(op), ...imm); return this; }
-  mem(align: number, offset: number): number[] { return [...uleb(align), ...uleb(offset)]; }
-}
 
 /**
  * The module for a cascade of ns sections: fwd(srcA, srcB, dstA, dstB, n) and rev(…) filter n
@@ -126,22 +70,17 @@ function moduleBytes(ns: number): Uint8Array<ArrayBuffer> {
       b.i32(0).get(z2(s)).simd(SIMD.store, ...b.mem(4, STATE + 32 * s + 16));
     }
     b.op(OP.end);
-    const locals = vec([[...uleb(1), T_I32], [...uleb(2 + 7 * ns), T_V128]]);
-    const body = [...locals, ...b.code];
-    return [...uleb(body.length), ...body];
+    return b.finish([[1, T_I32], [2 + 7 * ns, T_V128]]);
   };
   const i32x5 = vec([[T_I32], [T_I32], [T_I32], [T_I32], [T_I32]]);
-  const bytes = [
-    0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
+  return wasmModule([
     ...section(1, vec([[0x60, ...i32x5, ...vec([])]])), // type 0: (i32 ×5) -> ()
     ...section(2, vec([[...name('env'), ...name('memory'), 0x02, 0x00, ...uleb(1)]])), // imported memory, ≥ 1 page
     ...section(3, vec([[0], [0]])), // two functions of type 0
     ...section(7, vec([[...name('fwd'), 0x00, 0], [...name('rev'), 0x00, 1]])),
     ...section(10, vec([fn(false), fn(true)])),
-    // custom "name" section: the functions' names, so CPU profiles show them
-    ...section(0, [...name('name'), 1, ...(() => { const names = vec([[0, ...name('sosPairForward')], [1, ...name('sosPairBackward')]]); return [...uleb(names.length), ...names]; })()]),
-  ];
-  return new Uint8Array(bytes);
+    ...functionNames(['sosPairForward', 'sosPairBackward']),
+  ]);
 }
 
 /** Two channels filtered together through one cascade; see sosPairKernel. */

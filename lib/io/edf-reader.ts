@@ -10,6 +10,7 @@ import { InputError } from '../errors.js';
 import { ioMsg } from '../messages.js';
 import { type EdfHeader, type EdfSignalHeader, readEdfHeader } from './edf-header.js';
 import { IO_DEFAULTS, type OpenOptions } from './open-options.js';
+import { convert16Kernel } from './convert16-kernel.js';
 import { cachedScan, rememberScan, scanKey, settled, type EdfScan } from './edf-scan-cache.js';
 import { parseTals } from './parse-tals.js';
 import type { Annotation, ReadOptions, Recording, RecordingFormat, RecordingInfo, SignalChunk, SignalInfo } from './recording.js';
@@ -162,11 +163,15 @@ async function* readRecords(
   const spr = sel.map((s) => s.samples_per_record);
   const rate = spr.map((n) => n / dur);
   const K = Math.max(1, Math.floor(chunkBytes / h.record_size));
-  const buf = Buffer.alloc(K * h.record_size);
+  // 16-bit physical values: the SIMD kernel, with the read buffer and the outputs in its memory
+  const kernel = h.bytes_per_sample === 2 && LITTLE_ENDIAN && !digital
+    ? convert16Kernel(K * h.record_size + spr.reduce((a, n) => a + 8 * n * K + 16, 16)) : null;
+  const buf = kernel ? kernel.bytes(K * h.record_size) : Buffer.alloc(K * h.record_size);
   const i16 = h.bytes_per_sample === 2 && LITTLE_ENDIAN && buf.byteOffset % 2 === 0
     ? new Int16Array(buf.buffer, buf.byteOffset, buf.length >> 1) : null;
   const dv = new DataView(buf.buffer, buf.byteOffset, buf.length);
-  const out = spr.map((n) => new Float64Array(n * K));
+  const out = spr.map((n) => (kernel ? kernel.array(n * K) : new Float64Array(n * K)));
+  const counts = new Int32Array(2);
   const clippedLow = new Int32Array(m);
   const clippedHigh = new Int32Array(m);
   const lo = new Int32Array(m);
@@ -231,7 +236,11 @@ async function* readRecords(
         const byteStart = recBase + s.offset_in_record + a * h.bytes_per_sample;
         const dst = out[j];
         const at = fill[j];
-        if (i16 !== null) clippedLow[j] += convert16(i16, byteStart >> 1, b - a, dst, at, s, digital, clippedHigh, j);
+        if (kernel !== null) {
+          kernel.convert(i16!, byteStart >> 1, b - a, dst, at, s.digital_min, s.digital_max, s.bitvalue, s.offset, counts);
+          clippedLow[j] += counts[0]!;
+          clippedHigh[j] += counts[1]!;
+        } else if (i16 !== null) clippedLow[j] += convert16(i16, byteStart >> 1, b - a, dst, at, s, digital, clippedHigh, j);
         else if (h.bytes_per_sample === 2) clippedLow[j] += convert16dv(dv, byteStart, b - a, dst, at, s, digital, clippedHigh, j);
         else clippedLow[j] += convert24(buf, byteStart, b - a, dst, at, s, digital, clippedHigh, j);
         fill[j] = at + (b - a);

@@ -88,19 +88,14 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
   const references: ReferenceValue[] = [];
   const filterByRate = new Map<number, unknown>();
 
-  // Every input file with its fingerprint. The SHA-256 of each file is started now and runs
-  // alongside the analysis (on a 460-MB recording it is a few tenths of a second of reading and
-  // hashing that would otherwise come after it); a rejection is seen where it is awaited.
+  // Every input file with its fingerprint. The SHA-256 of each file runs alongside the analysis
+  // (queued on the pool's threads behind the recordings, below): on a 460-MB recording it is a
+  // few tenths of a second of reading and hashing that would otherwise come after it; a
+  // rejection is seen where it is awaited.
   const files = new Map<string, { shown: string; rate_hz: number | null }>();
   for (const w of study.workers) for (const r of w.recordings) {
     files.set(r.file, { shown: r.fileAsWritten, rate_hz: r.rate_hz });
     for (const sp of [...r.reference, ...r.rest, ...r.mveReference]) files.set(sp.file, { shown: sp.fileAsWritten, rate_hz: sp.rate_hz });
-  }
-  const hashes = new Map<string, Promise<string>>();
-  for (const abs of files.keys()) {
-    const h = sha256File(abs);
-    h.catch(() => undefined);
-    hashes.set(abs, h);
   }
 
   // Work estimate for progress: every field recording once, plus reference and rest spans.
@@ -174,6 +169,13 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
       p.catch(() => { /* awaited (and reported) in order below */ });
       queued.set(rec.id, p);
     }
+  }
+  // input hashes: on the pool, behind the recording jobs (inline: alongside the analysis)
+  const hashes = new Map<string, Promise<string>>();
+  for (const abs of files.keys()) {
+    const h = jobs > 1 ? pool.hash(abs) : sha256File(abs);
+    h.catch(() => undefined);
+    hashes.set(abs, h);
   }
   try {
     for (const worker of study.workers) {
@@ -362,7 +364,7 @@ export async function runStudy(study: Study, options: RunStudyOptions = {}): Pro
         });
       }
     }
-
+    await Promise.all(hashes.values()); // the pool stays open until the input hashes are done
   } finally {
     await pool.close();
   }

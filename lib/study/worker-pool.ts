@@ -5,12 +5,22 @@
 // error stays an InputError, exit code 2). With size 0 or 1 every job simply runs inline.
 import { Worker } from 'node:worker_threads';
 import { InputError } from '../errors.js';
+import { sha256File } from '../io/sha256-file.js';
 import { processRecording, type RecordingJob, type RecordingJobResult } from './process-recording.js';
+
+/** What a pool thread can be asked to do: one field recording, or the SHA-256 of an input file. */
+export type PoolTask = { kind: 'recording'; job: RecordingJob } | { kind: 'hash'; file: string };
+
+/** Run one task on this thread (the worker threads' entry does the same). */
+export function runTask(task: PoolTask, onProgress?: (done_s: number) => void): Promise<RecordingJobResult | string> {
+  return task.kind === 'hash' ? sha256File(task.file) : processRecording(task.job, onProgress);
+}
 
 interface Pending {
   id: number;
-  job: RecordingJob;
-  resolve: (r: RecordingJobResult) => void;
+  task: PoolTask;
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  resolve: (r: any) => void;
   reject: (e: Error) => void;
   onProgress?: (done_s: number) => void;
 }
@@ -36,7 +46,7 @@ export class RecordingPool {
   constructor(readonly size: number) {
     for (let i = 0; i < size - 1; i++) {
       const w = new Worker(workerUrl());
-      w.on('message', (m: { id: number; progress?: number; result?: RecordingJobResult; error?: { message: string; user: boolean; file?: string } }) => {
+      w.on('message', (m: { id: number; progress?: number; result?: RecordingJobResult | string; error?: { message: string; user: boolean; file?: string } }) => {
         const p = this.running.get(w);
         if (!p || p.id !== m.id) return;
         if (m.progress !== undefined) { p.onProgress?.(m.progress); return; }
@@ -55,12 +65,24 @@ export class RecordingPool {
     }
   }
 
-  /** Run one recording job (queued when every worker is busy). */
+  /** Run one recording job (queued when every thread is busy). */
   run(job: RecordingJob, onProgress?: (done_s: number) => void): Promise<RecordingJobResult> {
-    if (this.size <= 1) return processRecording(job, onProgress);
+    return this.submit({ kind: 'recording', job }, onProgress) as Promise<RecordingJobResult>;
+  }
+
+  /**
+   * The hex SHA-256 of a file, computed by the first free thread (queued behind the recording
+   * jobs submitted before it, so it fills a thread that would otherwise wait).
+   */
+  hash(file: string): Promise<string> {
+    return this.submit({ kind: 'hash', file }) as Promise<string>;
+  }
+
+  private submit(task: PoolTask, onProgress?: (done_s: number) => void): Promise<RecordingJobResult | string> {
+    if (this.size <= 1) return runTask(task, onProgress);
     if (this.closed) return Promise.reject(new Error('recording pool closed'));
     return new Promise((resolve, reject) => {
-      this.queue.push({ id: this.nextId++, job, resolve, reject, onProgress });
+      this.queue.push({ id: this.nextId++, task, resolve, reject, onProgress });
       this.pump();
     });
   }
@@ -70,7 +92,7 @@ export class RecordingPool {
       const w = this.idle.pop()!;
       const p = this.queue.shift()!;
       this.running.set(w, p);
-      w.postMessage({ id: p.id, job: p.job });
+      w.postMessage({ id: p.id, task: p.task });
     }
     if (!this.inlineBusy && this.queue.length > 0) {
       const p = this.queue.shift()!;
@@ -82,7 +104,7 @@ export class RecordingPool {
           if (this.closed) throw new Error('recording pool closed');
           p.onProgress?.(d);
         };
-        (this.closed ? Promise.reject(new Error('recording pool closed')) : processRecording(p.job, progress)).then(p.resolve, p.reject).finally(() => {
+        (this.closed ? Promise.reject(new Error('recording pool closed')) : runTask(p.task, progress)).then(p.resolve, p.reject).finally(() => {
           this.inlineBusy = false;
           this.pump();
         });

@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { openRecording } from '../../lib/io/open-recording.js';
 import { processRecording, type RecordingJob } from '../../lib/study/process-recording.js';
@@ -42,5 +43,20 @@ describe('RecordingPool(size)', () => {
     const outcome = [...(await early), ...late];
     expect(outcome[outcome.length - 1]!.status).toBe('rejected');
     expect(outcome.filter((o) => o.status === 'rejected').length).toBeGreaterThanOrEqual(jobs.length - 1);
+  });
+
+  it('hash(file) on a pool thread gives the SHA-256 listed in shared/fixtures/MANIFEST.json', async () => {
+    // expected: shared/fixtures/MANIFEST.json (sha256 of every fixture file, written by the fixture generator)
+    const manifest = JSON.parse(readFileSync(new URL('../../../shared/fixtures/MANIFEST.json', import.meta.url), 'utf8')) as { files: { path: string; sha256: string }[] };
+    const want = manifest.files.find((f) => f.path === 'edf/emg_3sig.edf')!.sha256;
+    const pool = new RecordingPool(2);
+    try {
+      const [a, b] = await Promise.all([pool.hash(FIXTURE_EDF), pool.hash(FIXTURE_EDF)]); // one on the worker, one here
+      expect(a).toBe(want);
+      expect(b).toBe(want);
+    } finally {
+      await pool.close();
+    }
+    expect(await new RecordingPool(1).hash(FIXTURE_EDF)).toBe(want);
   });
 });
