@@ -1,6 +1,7 @@
 // One streaming pass over a span of a recording: each requested channel goes through the same
 // filter (optional notch, zero-phase Butterworth band-pass; the channels of one sampling rate as
-// one BandFilterBank, so pairs share the SIMD kernel) and one or two moving-RMS envelopes. Field data, reference contractions and rest recordings all use this function, so the
+// one BandFilterBank, so pairs share the SIMD kernel) and one or two moving-RMS envelopes.
+// Field data, reference contractions and rest recordings all use this function, so the
 // references are processed exactly like the field data (DESIGN.md).
 import { BandFilterBank, type BandFilterSettings } from '../dsp/band-filter.js';
 import { RmsEnvelope } from '../dsp/rms-envelope.js';
