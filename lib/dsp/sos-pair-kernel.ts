@@ -11,7 +11,7 @@
 // cascade length. The samples stay in the kernel's own memory: callers allocate their block
 // buffers there (array()), so the passes need no copying in and out. Where WebAssembly SIMD is
 // missing, sosPairKernel returns null and callers use the scalar kernel.
-import { Body, functionNames, name, OP, SIMD, section, T_I32, T_V128, uleb, vec, wasmModule } from '../wasm/module-writer.js';
+import { Body, compiledModules, functionNames, name, OP, SIMD, section, T_I32, T_V128, uleb, vec, wasmModule } from '../wasm/module-writer.js';
 import type { Sos } from './sos.js';
 
 // Memory layout (bytes): coefficients b0 b1 b2 a1 a2 per section (f64), states z1 z2 per
@@ -100,21 +100,8 @@ export interface SosPairKernel {
     srcA?: Float64Array, srcB?: Float64Array, srcStart?: number): void;
 }
 
-const modules = new Map<number, WebAssembly.Module | null>();
-
-function compiled(ns: number): WebAssembly.Module | null {
-  if (!modules.has(ns)) {
-    let m: WebAssembly.Module | null = null;
-    try {
-      const bytes = moduleBytes(ns);
-      if (WebAssembly.validate(bytes)) m = new WebAssembly.Module(bytes);
-    } catch {
-      m = null; // no WebAssembly SIMD on this engine: the scalar kernel is used
-    }
-    modules.set(ns, m);
-  }
-  return modules.get(ns)!;
-}
+/** The module per cascade length (null without WebAssembly SIMD: the scalar kernel is used). */
+const compiled = compiledModules(moduleBytes);
 
 /**
  * A two-channel kernel for this cascade with room for `capacity` samples of caller arrays in its

@@ -2,7 +2,7 @@
 // RMS amplitude and its mean and median power frequency. A ChannelTap of readEnvelopes, so it runs
 // in the one streaming pass over a recording and keeps only per-epoch summaries (an 8-h shift at
 // 1-s epochs is 28,800 epochs ≈ 0.9 MB per channel).
-import { cachedFft } from '../dsp/cached-fft.js';
+import { PairedPowerSpectra } from '../dsp/paired-power-spectra.js';
 import { meanFrequency } from '../dsp/mean-frequency.js';
 import { medianFrequency } from '../dsp/median-frequency.js';
 import { checkSamplingRate } from '../dsp/butter.js';
@@ -101,10 +101,10 @@ export class SpectralEpochs implements ChannelTap {
   private readonly startS: number;
   private readonly window: Float64Array;
   private readonly buf: Float64Array;
-  private readonly work: Float64Array;
-  private readonly spec: Float64Array;
+  /** Power spectra of the filtered and of the raw epochs, two at a time. */
+  private readonly spectra: PairedPowerSpectra;
+  private readonly rawSpectra: PairedPowerSpectra;
   private readonly freq: Float64Array;
-  private readonly power: Float64Array;
   private fill = 0;
   /** Offset of the current piece, s from the read start, and whole epochs done in it. */
   private pieceOffsetS = 0;
@@ -139,11 +139,10 @@ export class SpectralEpochs implements ChannelTap {
     this.window = new Float64Array(n);
     for (let i = 0; i < n; i++) this.window[i] = 0.5 - 0.5 * Math.cos((2 * Math.PI * i) / n);
     this.buf = new Float64Array(n);
-    this.work = new Float64Array(nfft);
-    this.spec = new Float64Array(2 * nfft);
+    this.spectra = new PairedPowerSpectra(nfft);
+    this.rawSpectra = new PairedPowerSpectra(nfft);
     this.freq = new Float64Array(nfft / 2 + 1);
     for (let k = 0; k <= nfft / 2; k++) this.freq[k] = (k * this.fs) / nfft;
-    this.power = new Float64Array(nfft / 2 + 1);
     this.rawBuf = new Float64Array(n);
     this.rawSum = new Float64Array(nfft / 2 + 1);
     const bin = options.spectrum_bin_hz ?? SPECTRAL_EPOCH_DEFAULTS.spectrum_bin_hz;
@@ -181,20 +180,26 @@ export class SpectralEpochs implements ChannelTap {
   }
 
   private rawEpoch(): void {
-    const n = this.n, buf = this.rawBuf, work = this.work, win = this.window;
+    const n = this.n, buf = this.rawBuf, win = this.window;
     let sum = 0;
     for (let i = 0; i < n; i++) sum += buf[i]!;
     if (!Number.isFinite(sum)) return;
     const mean = sum / n;
+    const work = this.rawSpectra.input(); // work[n…nfft) stays 0 (zero padding)
     for (let i = 0; i < n; i++) work[i] = (buf[i]! - mean) * win[i]!;
-    cachedFft(this.nfft).realTransform(this.spec, work);
-    const half = this.nfft / 2, spec = this.spec, acc = this.rawSum;
-    for (let k = 0; k <= half; k++) { const re = spec[2 * k]!, im = spec[2 * k + 1]!; acc[k] = acc[k]! + re * re + im * im; }
-    this.rawEpochs++;
+    this.rawSpectra.submit(this.addRaw);
   }
+
+  /** One raw epoch's power into the mean spectrum's sum (in epoch order). */
+  private readonly addRaw = (power: Float64Array): void => {
+    const half = this.nfft / 2, acc = this.rawSum;
+    for (let k = 0; k <= half; k++) acc[k] = acc[k]! + power[k]!;
+    this.rawEpochs++;
+  };
 
   /** The mean raw spectrum so far on the coarse grid (new arrays). */
   meanSpectrum(): MeanSpectrum {
+    this.rawSpectra.flush();
     const half = this.nfft / 2, bin = this.binHz;
     let s2 = 0;
     for (let i = 0; i < this.n; i++) s2 += this.window[i]! * this.window[i]!;
@@ -237,6 +242,7 @@ export class SpectralEpochs implements ChannelTap {
 
   /** A discontinuity: drop the incomplete epoch; the next piece starts at `offset_s` from the read start. */
   restart(offset_s: number): void {
+    this.spectra.flush(); // epochs of the previous piece first
     this.fill = 0;
     this.rawFill = 0;
     this.pieceOffsetS = offset_s;
@@ -244,31 +250,34 @@ export class SpectralEpochs implements ChannelTap {
   }
 
   private epoch(): void {
-    const n = this.n, buf = this.buf, work = this.work, win = this.window, power = this.power;
+    const n = this.n, buf = this.buf, win = this.window;
     let sum = 0, sum2 = 0;
     for (let i = 0; i < n; i++) { const v = buf[i]!; sum += v; sum2 += v * v; }
     const mean = sum / n;
+    const work = this.spectra.input(); // work[n…nfft) stays 0 (zero padding); it is never written
     for (let i = 0; i < n; i++) work[i] = (buf[i]! - mean) * win[i]!;
-    // work[n…nfft) stays 0 (zero padding); it is never written.
-    cachedFft(this.nfft).realTransform(this.spec, work);
-    const half = this.nfft / 2, spec = this.spec;
-    for (let k = 0; k <= half; k++) { const re = spec[2 * k]!, im = spec[2 * k + 1]!; power[k] = re * re + im * im; }
-    const range = { fminHz: this.band_hz[0], fmaxHz: this.band_hz[1] };
-    const finite = Number.isFinite(sum2);
-    this.t.fill(this.startS + this.pieceOffsetS + (this.pieceEpochs * n + n / 2) / this.fs, 1);
-    this.rms.fill(Math.sqrt(sum2 / n), 1);
-    this.mnf.fill(finite ? meanFrequency(this.freq, power, range) : NaN, 1);
-    this.mdf.fill(finite ? medianFrequency(this.freq, power, range) : NaN, 1);
+    const t = this.startS + this.pieceOffsetS + (this.pieceEpochs * n + n / 2) / this.fs;
+    const rms = Math.sqrt(sum2 / n), finite = Number.isFinite(sum2);
     this.pieceEpochs++;
+    // transformed two epochs at a time (SIMD): the epoch's row is appended when its spectrum is in
+    this.spectra.submit((power) => {
+      const range = { fminHz: this.band_hz[0], fmaxHz: this.band_hz[1] };
+      this.t.fill(t, 1);
+      this.rms.fill(rms, 1);
+      this.mnf.fill(finite ? meanFrequency(this.freq, power, range) : NaN, 1);
+      this.mdf.fill(finite ? medianFrequency(this.freq, power, range) : NaN, 1);
+    });
   }
 
   /** Number of whole epochs so far. */
   get epochs(): number {
+    this.spectra.flush();
     return this.t.length;
   }
 
   /** The epochs so far (views of the tap's append-only arrays: later epochs do not change them; no copies). */
   result(): SpectralEpochSeries {
+    this.spectra.flush();
     return {
       t_s: this.t.take(), rms_uv: this.rms.take(), mnf_hz: this.mnf.take(), mdf_hz: this.mdf.take(),
       epoch_s: this.n / this.fs, n: this.n, nfft: this.nfft, fs: this.fs, band_hz: [this.band_hz[0], this.band_hz[1]],

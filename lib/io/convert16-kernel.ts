@@ -5,7 +5,7 @@
 // (test/io/convert16-kernel.test.ts). The reader's read buffer and its output arrays live in the
 // kernel's memory (bytes() / array()), so nothing is copied. Where WebAssembly SIMD is missing,
 // convert16Kernel returns null and the reader keeps its scalar loop.
-import { Body, functionNames, name, OP, SIMD, section, T_F64, T_I32, T_V128, uleb, vec, wasmModule } from '../wasm/module-writer.js';
+import { Body, compiledModules, functionNames, name, OP, SIMD, section, T_F64, T_I32, T_V128, uleb, vec, wasmModule } from '../wasm/module-writer.js';
 
 /** Bytes at the start of memory kept for the kernel (the count at the digital maximum). */
 const RESERVED = 64;
@@ -71,19 +71,8 @@ function moduleBytes(): Uint8Array<ArrayBuffer> {
   ]);
 }
 
-let compiled: WebAssembly.Module | null | undefined;
-
-function module(): WebAssembly.Module | null {
-  if (compiled === undefined) {
-    try {
-      const bytes = moduleBytes();
-      compiled = WebAssembly.validate(bytes) ? new WebAssembly.Module(bytes) : null;
-    } catch {
-      compiled = null; // no WebAssembly SIMD on this engine: the reader's scalar loop is used
-    }
-  }
-  return compiled;
-}
+/** The module (null without WebAssembly SIMD: the reader keeps its scalar loop). */
+const compiled = compiledModules((_: 0) => moduleBytes());
 
 /** The reader's 16-bit conversion in SIMD, with its buffers in the kernel's memory. */
 export interface Convert16Kernel {
@@ -105,7 +94,7 @@ export interface Convert16Kernel {
  * @example const k = convert16Kernel(2 << 20); const buf = k.bytes(1 << 20); const out = k.array(4000);
  */
 export function convert16Kernel(capacity: number): Convert16Kernel | null {
-  const mod = module();
+  const mod = compiled(0);
   if (mod === null) return null;
   const total = RESERVED + capacity + 64;
   if (total > 1 << 30) return null;

@@ -3,7 +3,7 @@
 // local spectral background (so broadband EMG at 50 Hz is not mistaken for hum). Segments are
 // averaged first (Welch) and the powers taken from the average, so the background estimate is
 // not biased by the spread of single-segment periodograms.
-import { cachedFft } from '../dsp/cached-fft.js';
+import { PairedPowerSpectra } from '../dsp/paired-power-spectra.js';
 
 /** Fixed layout of the output of SegmentBandPowers.compute (indices into `out`). */
 export const BAND = { low: 0, band: 1, mains0: 2 } as const;
@@ -22,16 +22,15 @@ export interface SegmentBandPowersOptions {
 
 /**
  * Band powers of averaged segment spectra (units: mean |X|² of the Hann-windowed segments; only
- * ratios are used). Each segment: mean removed, Hann window, one FFT through the shared fft.js
- * instance; all buffers are allocated once.
+ * ratios are used). Each segment: mean removed, Hann window, its power spectrum (two segments per
+ * SIMD transform, PairedPowerSpectra); all buffers are allocated once.
  * @example const p = new SegmentBandPowers({ fs: 1000, nperseg: 512, motion_hz: 20, band_hz: [20, 450], mains_hz: [50, 60], mains_harmonics: 5 });
  *   p.add(segment); p.add(next); p.compute(out); p.reset() // out[BAND.low], out[BAND.band], out[BAND.mains0 + i]
  */
 export class SegmentBandPowers {
   private readonly n: number;
   private readonly win: Float64Array;
-  private readonly work: Float64Array;
-  private readonly spec: Float64Array;
+  private readonly spectra: PairedPowerSpectra;
   private readonly pow: Float64Array;
   private readonly acc: Float64Array;
   private readonly accLo: number;
@@ -53,8 +52,7 @@ export class SegmentBandPowers {
     this.n = n;
     this.win = new Float64Array(n);
     for (let i = 0; i < n; i++) this.win[i] = 0.5 - 0.5 * Math.cos((2 * Math.PI * i) / n);
-    this.work = new Float64Array(n);
-    this.spec = new Float64Array(2 * n);
+    this.spectra = new PairedPowerSpectra(n);
     this.pow = new Float64Array(n / 2 + 1);
     this.acc = new Float64Array(n / 2 + 1);
     const df = o.fs / n;
@@ -78,19 +76,23 @@ export class SegmentBandPowers {
 
   /** Add the periodogram of segment x[0..nperseg) (not modified); a segment holding NaN is skipped. */
   add(x: Float64Array): void {
-    const n = this.n, w = this.work, win = this.win, acc = this.acc;
+    const n = this.n, win = this.win;
     let mean = 0;
     for (let i = 0; i < n; i++) mean += x[i];
     if (mean !== mean) return;
     mean /= n;
+    const w = this.spectra.input();
     for (let i = 0; i < n; i++) w[i] = (x[i] - mean) * win[i];
-    cachedFft(n).realTransform(this.spec, w);
-    const s = this.spec, p = this.pow;
+    this.count++;
+    this.spectra.submit(this.accumulate); // transformed two segments at a time (SIMD)
+  }
+
+  /** One segment's periodogram into the sums (called in the order the segments were added). */
+  private readonly accumulate = (p: Float64Array): void => {
+    const acc = this.acc;
     let band = 0, low = 0;
-    // power only where it is read: the low bins, and the band with the mains background margin
-    const lowEnd = this.lowEnd, bandLo = this.bandLo, bandHi = this.bandHi, accLo = this.accLo, accHi = this.accHi;
-    for (let k = 1; k < lowEnd; k++) { const v = s[2 * k] * s[2 * k] + s[2 * k + 1] * s[2 * k + 1]; p[k] = v; low += v; }
-    for (let k = accLo; k < accHi; k++) p[k] = s[2 * k] * s[2 * k] + s[2 * k + 1] * s[2 * k + 1];
+    const lowEnd = this.lowEnd, bandLo = this.bandLo, bandHi = this.bandHi;
+    for (let k = 1; k < lowEnd; k++) low += p[k];
     for (let k = bandLo; k <= bandHi; k++) band += p[k];
     this.absLow += low;
     this.absBand += band;
@@ -100,11 +102,11 @@ export class SegmentBandPowers {
       const inv = 1 / band;
       for (let k = this.accLo; k < this.accHi; k++) acc[k] += p[k] * inv;
     }
-    this.count++;
-  }
+  };
 
   /** Forget the segments added so far. */
   reset(): void {
+    this.spectra.flush(); // a segment waiting for its pair belongs to what is forgotten
     this.acc.fill(0);
     this.count = 0;
     this.absLow = 0;
@@ -117,7 +119,8 @@ export class SegmentBandPowers {
    * without the hum (a ratio), from the mean band-normalized periodogram.
    */
   compute(out: Float64Array): void {
-    const n = this.n, p = this.pow, c = Math.max(1, this.count);
+    this.spectra.flush(); // every added segment in the sums
+    const p = this.pow, c = Math.max(1, this.count);
     for (let k = this.accLo; k < this.accHi; k++) p[k] = this.acc[k] / c;
     let band = 0;
     for (let k = this.bandLo; k <= this.bandHi; k++) band += p[k];

@@ -56,8 +56,8 @@ export function wasmModule(sections: number[]): Uint8Array<ArrayBuffer> {
 export const OP = {
   block: 0x02, loop: 0x03, br: 0x0c, brIf: 0x0d, end: 0x0b,
   localGet: 0x20, localSet: 0x21, localTee: 0x22,
-  i32Store: 0x36,
-  i32Const: 0x41, i32LtS: 0x48, i32GeS: 0x4e, i32Add: 0x6a, i32Sub: 0x6b, i32And: 0x71, i32Shl: 0x74,
+  i32Load: 0x28, i32Store: 0x36,
+  i32Const: 0x41, f64Const: 0x44, i32LtS: 0x48, i32GeS: 0x4e, i32Add: 0x6a, i32Sub: 0x6b, i32Mul: 0x6c, i32And: 0x71, i32Shl: 0x74, i32ShrU: 0x76,
   simd: 0xfd,
 } as const;
 
@@ -83,6 +83,12 @@ export class Body {
   set(l: number): this { this.code.push(OP.localSet, ...uleb(l)); return this; }
   tee(l: number): this { this.code.push(OP.localTee, ...uleb(l)); return this; }
   i32(v: number): this { this.code.push(OP.i32Const, ...sleb(v)); return this; }
+  f64(v: number): this {
+    const d = new DataView(new ArrayBuffer(8));
+    d.setFloat64(0, v, true); // little-endian, as the binary format
+    this.code.push(OP.f64Const, ...new Uint8Array(d.buffer));
+    return this;
+  }
   op(...b: number[]): this { this.code.push(...b); return this; }
   simd(op: number, ...imm: number[]): this { this.code.push(OP.simd, ...uleb(op), ...imm); return this; }
   /** A memory argument: alignment (log2 bytes) and offset. */
@@ -92,4 +98,26 @@ export class Body {
     const body = [...vec(locals.map(([n, t]) => [...uleb(n), t])), ...this.code];
     return [...uleb(body.length), ...body];
   }
+}
+
+/**
+ * A compiler of generated modules with one compiled module per key, or null for every key where
+ * the engine refuses the module (no WebAssembly SIMD): callers then use their scalar code.
+ * @example const moduleFor = compiledModules((n: number) => moduleBytes(n)); const m = moduleFor(2048);
+ */
+export function compiledModules<K>(make: (key: K) => Uint8Array<ArrayBuffer>): (key: K) => WebAssembly.Module | null {
+  const cache = new Map<K, WebAssembly.Module | null>();
+  return (key) => {
+    if (!cache.has(key)) {
+      let m: WebAssembly.Module | null = null;
+      try {
+        const bytes = make(key);
+        if (WebAssembly.validate(bytes)) m = new WebAssembly.Module(bytes);
+      } catch {
+        m = null;
+      }
+      cache.set(key, m);
+    }
+    return cache.get(key)!;
+  };
 }
