@@ -78,15 +78,17 @@ export function estimateHeartRate(bins: Float64Array, n: number, options: HeartR
   mean /= n;
   for (let m = 0; m < n; m++) d[m] -= mean;
 
-  // Normalized autocorrelation (Pearson form over the overlapping parts).
+  // Normalized autocorrelation (Pearson form over the overlapping parts). The two energies of
+  // the overlap come from prefix sums of d² (cs is free again), so each lag is one product sum.
   let best = -Infinity, bestLag = -1;
   const hi = Math.min(lagMax + 1, n - 1);
+  cs[0] = 0;
+  for (let m = 0; m < n; m++) cs[m + 1] = cs[m] + d[m] * d[m];
   for (let L = lagMin - 1; L <= hi; L++) {
-    let sxy = 0, sxx = 0, syy = 0;
-    for (let m = 0; m + L < n; m++) {
-      const x = d[m], y = d[m + L];
-      sxy += x * y; sxx += x * x; syy += y * y;
-    }
+    let s0 = 0, s1 = 0, m = 0;
+    for (; m + 1 + L < n; m += 2) { s0 += d[m] * d[m + L]; s1 += d[m + 1] * d[m + 1 + L]; }
+    if (m + L < n) s0 += d[m] * d[m + L];
+    const sxy = s0 + s1, sxx = cs[n - L], syy = cs[n] - cs[L];
     const v = sxx > 0 && syy > 0 ? sxy / Math.sqrt(sxx * syy) : 0;
     r[L] = v;
     if (L >= lagMin && L <= lagMax && v > best) { best = v; bestLag = L; }
