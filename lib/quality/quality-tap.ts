@@ -169,13 +169,38 @@ export class QualityTap implements ChannelTap {
         while (j < end && x[j] !== x[j]) { nan++; j++; }
         if (j < end) shift = x[j]!;
       }
-      for (; j < end; j++) {
+      // sums in two lanes (alternate samples) assuming no NaN; a NaN shows in the sums, and then
+      // the run is counted again sample by sample
+      const from = j;
+      let s1b = 0, s2b = 0;
+      for (; j + 1 < end; j += 2) {
+        const v = x[j]!, u = x[j + 1]!;
+        if (v >= hiL) hi++;
+        else if (v <= loL) lo++;
+        if (u >= hiL) hi++;
+        else if (u <= loL) lo++;
+        const d = v - shift, e = u - shift;
+        s1 += d; s2 += d * d; s1b += e; s2b += e * e;
+      }
+      if (j < end) {
         const v = x[j]!;
-        if (v !== v) { nan++; continue; }
         if (v >= hiL) hi++;
         else if (v <= loL) lo++;
         const d = v - shift;
-        s1 += d; s2 += d * d; cnt++;
+        s1 += d; s2 += d * d;
+        j++;
+      }
+      s1 += s1b; s2 += s2b; cnt = end - from;
+      if (s1 !== s1 || s2 !== s2) {
+        hi = 0; lo = 0; s1 = 0; s2 = 0; cnt = 0;
+        for (j = from; j < end; j++) {
+          const v = x[j]!;
+          if (v !== v) { nan++; continue; }
+          if (v >= hiL) hi++;
+          else if (v <= loL) lo++;
+          const d = v - shift;
+          s1 += d; s2 += d * d; cnt++;
+        }
       }
       cShift[w] = shift;
       cn[w] += cnt;
