@@ -1,14 +1,15 @@
 // EDF+D: record start times from the time-keeping TALs, gap_before, and spans by clock time.
-// Known truth: a file written by EdfWriter, then edited into EDF+D by rewriting the reserved field
-// and three time-keeping TALs (+3,+4,+5 → +7,+8,+9: a 4-s gap after record 2), as the EDF+ spec
-// (Kemp & Olivan 2003) allows for discontinuous recordings.
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+// Known truth: a file written by EdfWriter, then edited into EDF+D (test/support/edf-plus-d.ts):
+// the reserved field and three time-keeping TALs (+3,+4,+5 → +7,+8,+9: a 4-s gap after record 2),
+// as the EDF+ spec (Kemp & Olivan 2003) allows for discontinuous recordings.
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { EdfWriter } from '../../lib/io/edf-writer.js';
 import type { EdfRecording } from '../../lib/io/edf-reader.js';
 import { openRecording } from '../../lib/io/open-recording.js';
+import { makeDiscontinuous } from '../support/edf-plus-d.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'shiftload-edfd-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -18,16 +19,7 @@ function makeD(): string {
   const w = new EdfWriter(p, [{ label: 'idx', unit: 'uV', rate_hz: 100, physical_min: -32768, physical_max: 32767 }], { record_duration_s: 1 });
   w.write([Float64Array.from({ length: 600 }, (_, i) => i)]);
   w.close();
-  const b = Buffer.from(readFileSync(p));
-  b.write('EDF+D', 192, 'latin1');
-  const header = 256 * 3;
-  const rec = (b.length - header) / 6;
-  for (const [r, t] of [[3, 7], [4, 8], [5, 9]]) {
-    const at = header + r * rec + 200;
-    expect(b.toString('latin1', at, at + 2)).toBe(`+${r}`);
-    b.write(`+${t}`, at, 'latin1');
-  }
-  writeFileSync(p, b);
+  makeDiscontinuous(p, 1, 6, 200, [[3, 7], [4, 8], [5, 9]]);
   return p;
 }
 

@@ -2,13 +2,14 @@
 // (BandFilterBank: SIMD pairs plus a scalar odd one), and must give exactly what each channel read
 // alone gives, also across an EDF+D gap (known truth: a file written by EdfWriter, then edited into
 // EDF+D as the EDF+ spec, Kemp & Olivan 2003, allows: records 3–5 moved 4 s later).
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { EdfWriter } from '../../lib/io/edf-writer.js';
 import { SplitMix64 } from '../../lib/stats/splitmix64.js';
 import { readEnvelopes, type ReadEnvelopesRequest } from '../../lib/study/read-envelopes.js';
+import { makeDiscontinuous } from '../support/edf-plus-d.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'shiftload-read-env-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -21,16 +22,7 @@ function makeD(): string {
   const w = new EdfWriter(p, [sig('a'), sig('b'), sig('c')], { record_duration_s: 1 });
   w.write([0, 1, 2].map((c) => Float64Array.from({ length: 6000 }, () => (r.random() - 0.5) * 200 * (c + 1))));
   w.close();
-  const b = Buffer.from(readFileSync(p));
-  b.write('EDF+D', 192, 'latin1');
-  const header = 256 * 5;
-  const rec = (b.length - header) / 6;
-  for (const [k, t] of [[3, 7], [4, 8], [5, 9]]) {
-    const at = header + k * rec + 3 * 1000 * 2; // after three signals of 1000 two-byte samples
-    expect(b.toString('latin1', at, at + 2)).toBe(`+${k}`);
-    b.write(`+${t}`, at, 'latin1');
-  }
-  writeFileSync(p, b);
+  makeDiscontinuous(p, 3, 6, 3 * 1000 * 2, [[3, 7], [4, 8], [5, 9]]); // TAL after three signals of 1000 two-byte samples
   return p;
 }
 
