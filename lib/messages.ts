@@ -343,7 +343,7 @@ export const qualityMsg = {
 
 export const inputMsg = {
   spanUnit: (signal: string, spanFile: string, spanUnit: string, recFile: string, recUnit: string) =>
-    `signal '${signal}' is in ${spanUnit} in ${spanFile} but in ${recUnit} in ${recFile}; units are not converted — export both in the same unit`,
+    `signal '${signal}' is in ${spanUnit} in ${spanFile} but in ${recUnit} in ${recFile}; only voltage units (µV, mV, V, nV) are converted — export both in the same unit`,
   csvLineTooLong: (file: string, line: number, limit: number) =>
     `${file}:${line}: line longer than ${limit} bytes; not a CSV/TSV text export (zero-filled or binary file?)`,
   csvTimeRate: (file: string, step: number) => `${file}: time column: a step of ${step} s gives no usable sampling rate or duration`,

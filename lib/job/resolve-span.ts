@@ -1,6 +1,7 @@
 // Resolve a reference/rest/MVE span (times, or every annotation with a given text) in its file,
 // checking that the recording's channels exist there and that the span fits the file.
 import { resolve } from 'node:path';
+import { microvoltsPerUnit } from '../io/microvolts-per-unit.js';
 import { inputMsg, jobMsg } from '../messages.js';
 import type { RecordingInput, SpanInput } from './job-file.js';
 import { TIME_EPS, type JobContext } from './job-context.js';
@@ -34,11 +35,13 @@ export async function resolveSpan(
     if (idx < 0 && !missingHere.has(c.signal)) {
       ctx.issue(filePath, jobMsg.noSignalForChannel(c.signal, written, formatKeyPath([...rPath, 'channels', ci]), desc.signals.map((s) => s.label)));
     }
-    // Physical values are used as written (no unit conversion): a reference or rest span in mV
-    // against a recording in µV would silently scale every normalized value by 1000.
+    // Every amplitude is converted to µV when read (microvoltsPerUnit), so a reference or rest
+    // span in mV against a recording in µV is fine. Units shiftload does not know are used as
+    // written: two different ones would silently scale every normalized value, so they are refused.
     const spanUnit = idx >= 0 ? desc.signals[idx].unit : undefined;
     const recUnit = unitsHere.get(c.signal);
-    if (spanUnit !== undefined && recUnit !== undefined && sameUnit(spanUnit, recUnit) === false) {
+    const convertible = spanUnit !== undefined && recUnit !== undefined && microvoltsPerUnit(spanUnit) !== null && microvoltsPerUnit(recUnit) !== null;
+    if (spanUnit !== undefined && recUnit !== undefined && !convertible && sameUnit(spanUnit, recUnit) === false) {
       ctx.issue(filePath, inputMsg.spanUnit(c.signal, written, spanUnit, r.file, recUnit));
       idx = -1;
     }

@@ -252,21 +252,37 @@ describe('catalogue: job YAML (check)', () => {
 });
 
 describe('catalogue: units of reference and rest files', () => {
-  it('a reference file in mV for a recording in µV exits 2 naming the signal, both files and units (was silently 1000× off)', async () => {
+  it('a reference file in mV for a recording in µV is converted (same results as µV); an unknown unit that differs exits 2 naming the signal, both files and units', async () => {
     const d = caseDir();
     const csv = join(d, 'tiny.csv');
     expect((await run('convert', join(d, 'tiny.edf'), '--format', 'csv', '-o', csv)).code).toBe(0);
     const text = readFileSync(csv, 'utf8');
-    writeFileSync(join(d, 'ref-mv.csv'), text.replace(/^.*\n/, 'time_s,EMG R [mV],EMG L [mV]\n'));
+    const lines = text.trimEnd().split('\n');
+    // the same signals in mV: every value ÷ 1000 (EDF/CSV physical values; 1 mV = 1000 µV)
+    const mv = ['time_s,EMG R [mV],EMG L [mV]', ...lines.slice(1).map((l) => l.split(',').map((v, i) => (i === 0 ? v : String(Number(v) / 1000))).join(','))];
+    writeFileSync(join(d, 'ref-mv.csv'), mv.join('\n') + '\n');
     writeFileSync(join(d, 'ref-uv.csv'), text.replace(/^.*\n/, 'time_s,EMG R [\u00b5V],EMG L [UV]\n'));
+    writeFileSync(join(d, 'ref-counts.csv'), text.replace(/^.*\n/, 'time_s,EMG R [counts],EMG L [counts]\n'));
     const job = (ref: string) => readFileSync(join(d, 'tiny-job.yaml'), 'utf8').replace('- file: tiny.edf', '- file: tiny.csv')
       .replace('reference: { file: tiny.edf, annotation: "reference contraction" }', `reference: { file: ${ref}, start_s: 1, end_s: 3 }`);
     const p = join(d, 'units.yaml');
-    writeFileSync(p, job('ref-mv.csv'));
-    await refused(['check', p], p, /units\.yaml:\d+ workers\[0\]\.reference\.file: signal 'EMG R' is in mV in ref-mv\.csv but in uV in tiny\.csv/);
-    writeFileSync(p, job('ref-uv.csv')); // µV, UV and uV are one unit
-    const r = await run('check', p);
-    expect(r.code, r.err).toBe(0);
+    writeFileSync(p, job('ref-counts.csv'));
+    await refused(['check', p], p, /units\.yaml:\d+ workers\[0\]\.reference\.file: signal 'EMG R' is in counts in ref-counts\.csv but in uV in tiny\.csv/);
+    const levels = async (ref: string, out: string) => {
+      writeFileSync(p, job(ref));
+      const r = await run('analyze', p, '--no-report', '-o', join(d, out));
+      expect(r.code, r.err).toBe(0);
+      const res = JSON.parse(readFileSync(join(d, out, 'results.json'), 'utf8')) as StudyResults;
+      return res.rows.map((row) => [row.reference_uv, (row as unknown as Record<string, number | null>).p50]);
+    };
+    const inUv = await levels('ref-uv.csv', 'o-uv'); // µV, UV and uV are one unit
+    const inMv = await levels('ref-mv.csv', 'o-mv');
+    expect(inMv.length).toBe(inUv.length);
+    inMv.forEach((row, i) => row.forEach((v, j) => {
+      const w = inUv[i]![j]!;
+      if (typeof v !== 'number' || typeof w !== 'number') expect(v).toBe(w);
+      else expect(Math.abs(v - w)).toBeLessThanOrEqual(1e-6 * Math.abs(w)); // CSV text rounding only
+    }));
   });
 });
 
